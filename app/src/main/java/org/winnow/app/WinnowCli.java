@@ -1,0 +1,46 @@
+package org.winnow.app;
+
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+
+/** The {@code winnow} command line: one subcommand per job. */
+@Command(
+        name = "winnow",
+        mixinStandardHelpOptions = true,
+        versionProvider = WinnowCli.Version.class,
+        description = "Prefilter complete-intersection Calabi-Yau configuration matrices before exact computation.",
+        subcommands = {
+            CommandLine.HelpCommand.class,
+            DemoCommand.class,
+        })
+public final class WinnowCli implements Runnable {
+    /** Exit code for bad input; picocli also uses 2 for bad options. */
+    public static final int EXIT_BAD_INPUT = 2;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public void run() {
+        spec.commandLine().usage(System.err);
+    }
+
+    /** Builds the command line with the project's conventions (exit 2 on bad options). */
+    public static CommandLine commandLine() {
+        CommandLine cl = new CommandLine(new WinnowCli());
+        cl.setCaseInsensitiveEnumValuesAllowed(true);
+        return cl;
+    }
+
+    public static void main(String[] args) {
+        System.exit(commandLine().execute(args));
+    }
+
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            String v = WinnowCli.class.getPackage().getImplementationVersion();
+            return new String[] {"winnow " + (v == null ? "development build" : v)};
+        }
+    }
+}

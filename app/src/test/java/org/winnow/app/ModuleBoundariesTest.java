@@ -1,0 +1,70 @@
+package org.winnow.app;
+
+import static com.tngtech.archunit.lang.syntax.ArchRuleDefinition.noClasses;
+
+import com.tngtech.archunit.core.domain.JavaClasses;
+import com.tngtech.archunit.core.importer.ClassFileImporter;
+import com.tngtech.archunit.core.importer.ImportOption;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+
+/**
+ * The module graph is a DAG: geometry depends on nothing of ours, pipeline only on geometry, and the
+ * three stages never import each other. Only app wires them. Checked here on the compiled classes
+ * rather than left to memory.
+ */
+class ModuleBoundariesTest {
+    private static JavaClasses classes;
+
+    @BeforeAll
+    static void importClasses() {
+        classes = new ClassFileImporter()
+                .withImportOption(ImportOption.Predefined.DO_NOT_INCLUDE_TESTS)
+                .importPackages("org.winnow");
+    }
+
+    @Test
+    void geometryDependsOnNothingOfOurs() {
+        noClasses().that().resideInAPackage("org.winnow.geometry..")
+                .should().dependOnClassesThat().resideInAnyPackage(
+                        "org.winnow.pipeline..", "org.winnow.producer..", "org.winnow.scorer..",
+                        "org.winnow.sink..", "org.winnow.app..", "org.winnow.bench..")
+                .allowEmptyShould(true)
+                .check(classes);
+    }
+
+    @Test
+    void pipelineDependsOnlyOnGeometry() {
+        noClasses().that().resideInAPackage("org.winnow.pipeline..")
+                .should().dependOnClassesThat().resideInAnyPackage(
+                        "org.winnow.producer..", "org.winnow.scorer..", "org.winnow.sink..",
+                        "org.winnow.app..", "org.winnow.bench..")
+                .allowEmptyShould(true)
+                .check(classes);
+    }
+
+    @Test
+    void producerImportsNeitherScorerNorSink() {
+        stageIsolated("org.winnow.producer..", "org.winnow.scorer..", "org.winnow.sink..");
+    }
+
+    @Test
+    void scorerImportsNeitherProducerNorSink() {
+        stageIsolated("org.winnow.scorer..", "org.winnow.producer..", "org.winnow.sink..");
+    }
+
+    @Test
+    void sinkImportsNeitherProducerNorScorer() {
+        stageIsolated("org.winnow.sink..", "org.winnow.producer..", "org.winnow.scorer..");
+    }
+
+    private static void stageIsolated(String stage, String... others) {
+        String[] forbidden = new String[others.length + 1];
+        System.arraycopy(others, 0, forbidden, 0, others.length);
+        forbidden[others.length] = "org.winnow.app..";
+        noClasses().that().resideInAPackage(stage)
+                .should().dependOnClassesThat().resideInAnyPackage(forbidden)
+                .allowEmptyShould(true)
+                .check(classes);
+    }
+}

@@ -1,0 +1,192 @@
+package org.winnow.geometry;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * The project's one-line text format: rows {@code n:d1,...,dK} joined by {@code /}, for example
+ * {@code 2:3,0/2:0,3/1:1,1}. Blanks around separators are allowed; {@code #} starts a comment.
+ * The writer emits no blanks, so the text of a canonical matrix is a byte-exact key.
+ */
+public final class ConfigurationText {
+    private ConfigurationText() {}
+
+    /** Parses a single configuration given on line 1. */
+    public static Configuration parse(String text) {
+        return parse(text, 1);
+    }
+
+    /**
+     * Parses a single configuration; {@code lineNumber} is only used in error messages.
+     *
+     * @throws ConfigurationFormatException naming the line, the column and what was expected
+     */
+    public static Configuration parse(String text, int lineNumber) {
+        if (text == null) {
+            throw new ConfigurationFormatException(lineNumber, 1, "empty input, expected a configuration such as 4:5");
+        }
+        Scanner s = new Scanner(text, lineNumber);
+        s.skipBlanks();
+        if (s.atEnd()) {
+            throw s.error("empty input, expected a configuration such as 4:5");
+        }
+        List<Integer> dims = new ArrayList<>();
+        List<int[]> rows = new ArrayList<>();
+        List<Integer> rowColumns = new ArrayList<>();
+        while (true) {
+            s.skipBlanks();
+            int rowStart = s.column();
+            dims.add(s.number("the dimension n of a projective factor"));
+            s.skipBlanks();
+            s.expect(':', "':' after the dimension");
+            List<Integer> degrees = new ArrayList<>();
+            while (true) {
+                s.skipBlanks();
+                degrees.add(s.signedNumber("a degree"));
+                s.skipBlanks();
+                if (s.peek() == ',') {
+                    s.advance();
+                    continue;
+                }
+                break;
+            }
+            int[] row = degrees.stream().mapToInt(Integer::intValue).toArray();
+            rows.add(row);
+            rowColumns.add(rowStart);
+            if (rows.size() > 1 && row.length != rows.get(0).length) {
+                throw new ConfigurationFormatException(lineNumber, rowStart, String.format(
+                        "ragged rows: row 1 has %d entries but row %d has %d",
+                        rows.get(0).length, rows.size(), row.length));
+            }
+            s.skipBlanks();
+            if (s.atEnd()) {
+                break;
+            }
+            s.expect('/', "'/' between rows, ',' between degrees, or the end of the configuration");
+        }
+        int m = dims.size();
+        int[] n = new int[m];
+        int[][] q = new int[m][];
+        for (int r = 0; r < m; r++) {
+            n[r] = dims.get(r);
+            q[r] = rows.get(r);
+        }
+        try {
+            return Configuration.of(n, q);
+        } catch (IllegalArgumentException e) {
+            throw new ConfigurationFormatException(lineNumber, 1, e.getMessage());
+        }
+    }
+
+    /** Strips a {@code #} comment; returns null when nothing but blanks remains. */
+    public static String stripComment(String line) {
+        int hash = line.indexOf('#');
+        String body = hash >= 0 ? line.substring(0, hash) : line;
+        // Files may carry annotations after a tab; the configuration is the first field.
+        int tab = body.indexOf('\t');
+        if (tab >= 0) {
+            body = body.substring(0, tab);
+        }
+        return body.isBlank() ? null : body;
+    }
+
+    /** Writes the configuration in its own row and column order, without blanks. */
+    public static String format(Configuration c) {
+        StringBuilder sb = new StringBuilder(8 * c.rows() * (c.cols() + 1));
+        for (int r = 0; r < c.rows(); r++) {
+            if (r > 0) {
+                sb.append('/');
+            }
+            sb.append(c.n(r)).append(':');
+            for (int j = 0; j < c.cols(); j++) {
+                if (j > 0) {
+                    sb.append(',');
+                }
+                sb.append(c.q(r, j));
+            }
+        }
+        return sb.toString();
+    }
+
+    private static final class Scanner {
+        private final String text;
+        private final int line;
+        private int pos;
+
+        Scanner(String text, int line) {
+            this.text = text;
+            this.line = line;
+        }
+
+        boolean atEnd() {
+            return pos >= text.length();
+        }
+
+        char peek() {
+            return atEnd() ? '\0' : text.charAt(pos);
+        }
+
+        void advance() {
+            pos++;
+        }
+
+        int column() {
+            return pos + 1;
+        }
+
+        void skipBlanks() {
+            while (!atEnd() && (text.charAt(pos) == ' ' || text.charAt(pos) == '\t')) {
+                pos++;
+            }
+        }
+
+        void expect(char c, String what) {
+            if (peek() != c) {
+                throw error("expected " + what + " but found " + describe());
+            }
+            pos++;
+        }
+
+        int signedNumber(String what) {
+            if (peek() == '-') {
+                int start = pos;
+                pos++;
+                if (!Character.isDigit(peek())) {
+                    pos = start;
+                    throw error("expected " + what + " but found " + describe());
+                }
+                return -digits(what);
+            }
+            return number(what);
+        }
+
+        int number(String what) {
+            if (!Character.isDigit(peek())) {
+                throw error("expected " + what + " but found " + describe());
+            }
+            return digits(what);
+        }
+
+        private int digits(String what) {
+            int start = pos;
+            long v = 0;
+            while (!atEnd() && Character.isDigit(text.charAt(pos))) {
+                v = v * 10 + (text.charAt(pos) - '0');
+                if (v > 1_000_000) {
+                    pos = start;
+                    throw error(what + " is too large: " + text.substring(start, Math.min(text.length(), start + 12)));
+                }
+                pos++;
+            }
+            return (int) v;
+        }
+
+        String describe() {
+            return atEnd() ? "the end of the input" : "'" + text.charAt(pos) + "'";
+        }
+
+        ConfigurationFormatException error(String problem) {
+            return new ConfigurationFormatException(line, column(), problem);
+        }
+    }
+}
