@@ -1,6 +1,7 @@
 package org.winnow.geometry;
 
 import java.util.Arrays;
+import org.winnow.geometry.canonical.CanonicalForm;
 
 /**
  * A configuration matrix: the ambient {@code P^{n_1} x ... x P^{n_m}} and the multi-degrees of K
@@ -141,6 +142,16 @@ public final class Configuration {
     /** The text form, rows {@code n:d1,...,dK} joined by {@code /}, in this matrix's own order. */
     public String toText() {
         return ConfigurationText.format(this);
+    }
+
+    /** The canonical representative of this matrix's permutation class; see {@link CanonicalForm}. */
+    public Configuration canonical() {
+        return CanonicalForm.canonical(this);
+    }
+
+    /** The text of {@link #canonical()}: the pipeline's byte-exact dedup key. */
+    public String canonicalText() {
+        return CanonicalForm.canonicalText(this);
     }
 
     @Override
