@@ -1,5 +1,7 @@
 package org.winnow.geometry.cohomology.transfer;
 
+import org.winnow.geometry.linalg.ModP;
+
 /**
  * The multi-Cech model of one Koszul summand and its explicit contraction onto Bott representatives.
  *
@@ -77,7 +79,7 @@ final class CechModel {
                         s.sigma[r] = sigma & ~bit;
                         layout.pack(s, buffer, 0);
                         boolean flip = negative ^ ((v & 1) == 1);
-                        out.add(buffer, 0, flip ? Residues.negate(coefficient) : coefficient);
+                        out.add(buffer, 0, flip ? ModP.neg(coefficient) : coefficient);
                         s.sigma[r] = sigma;
                     }
                 }
@@ -103,7 +105,7 @@ final class CechModel {
                         s.sigma[r] = sigma | bit;
                         layout.pack(s, buffer, 0);
                         boolean flip = negative ^ ((Integer.bitCount(sigma & (bit - 1)) & 1) == 1);
-                        out.add(buffer, 0, flip ? Residues.negate(coefficient) : coefficient);
+                        out.add(buffer, 0, flip ? ModP.neg(coefficient) : coefficient);
                     }
                 }
                 s.sigma[r] = sigma;

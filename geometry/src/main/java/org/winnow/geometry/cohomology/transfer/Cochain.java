@@ -1,6 +1,7 @@
 package org.winnow.geometry.cohomology.transfer;
 
 import java.util.Arrays;
+import org.winnow.geometry.linalg.ModP;
 
 /**
  * A sparse cochain of the double complex: packed cells ({@link CellLayout}) with coefficients mod p.
@@ -61,7 +62,7 @@ final class Cochain {
             }
             if (sameKey(e, key, off)) {
                 long v = values[e] + coefficient;
-                values[e] = v >= Residues.P ? v - Residues.P : v;
+                values[e] = v >= ModP.P ? v - ModP.P : v;
                 return;
             }
             slot = (slot + 1) & mask;

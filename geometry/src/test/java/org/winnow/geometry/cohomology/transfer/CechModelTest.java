@@ -9,6 +9,7 @@ import java.util.Map;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.linalg.ModP;
 
 /**
  * The contraction identities of the Cech model (derived: they are the defining properties of a
@@ -38,7 +39,7 @@ class CechModelTest {
                 CellTerm bott = f.layout.newTerm();
                 bott.copyFrom(c);
                 if (f.model.toBottForm(bott)) {
-                    add(f, rhs, bott, Residues.P - 1);
+                    add(f, rhs, bott, ModP.P - 1);
                 }
                 Map<String, Long> left = f.expand(lhs);
                 assertEquals(f.expand(rhs), left, () -> "delta H + H delta = 1 - iota Pi fails at " + f.describe(c));
@@ -174,7 +175,7 @@ class CechModelTest {
 
         private void expandInto(CellTerm t, int r, long coefficient, Map<String, Long> out) {
             if (r == layout.factors()) {
-                out.merge(describe(t), coefficient, (a, b) -> (a + b) % Residues.P);
+                out.merge(describe(t), coefficient, (a, b) -> (a + b) % ModP.P);
                 return;
             }
             if (t.sigma[r] != CellTerm.LIFTED) {
@@ -195,7 +196,7 @@ class CechModelTest {
             for (int e = 0; e < c.size(); e++) {
                 layout.unpack(c.keys(), e * c.stride(), t);
                 if (model.toBottForm(t)) {
-                    out.merge(describe(t), c.value(e), (a, b) -> (a + b) % Residues.P);
+                    out.merge(describe(t), c.value(e), (a, b) -> (a + b) % ModP.P);
                 }
             }
             out.values().removeIf(v -> v == 0);
