@@ -12,6 +12,7 @@ import picocli.CommandLine.Command;
         subcommands = {
             CommandLine.HelpCommand.class,
             DemoCommand.class,
+            InvariantsCommand.class,
         })
 public final class WinnowCli implements Runnable {
     /** Exit code for bad input; picocli also uses 2 for bad options. */

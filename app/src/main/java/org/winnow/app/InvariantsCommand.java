@@ -1,0 +1,205 @@
+package org.winnow.app;
+
+import com.fasterxml.jackson.databind.ObjectMapper;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStreamReader;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Optional;
+import java.util.concurrent.Callable;
+import me.tongfei.progressbar.ConsoleProgressBarConsumer;
+import me.tongfei.progressbar.ProgressBar;
+import me.tongfei.progressbar.ProgressBarBuilder;
+import org.winnow.geometry.Configuration;
+import org.winnow.geometry.ConfigurationFormatException;
+import org.winnow.geometry.ConfigurationText;
+import org.winnow.geometry.ConfigurationValidator;
+import org.winnow.geometry.invariants.CheapInvariants;
+import org.winnow.geometry.invariants.InvariantCalculator;
+import org.winnow.geometry.invariants.TripleIntersection;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/**
+ * {@code winnow invariants}: the cheap exact invariants of Calabi-Yau configuration matrices given
+ * on the command line or in files. Every bad input gets one line on stderr and the run goes on;
+ * the exit code is 2 if any input was bad.
+ */
+@Command(name = "invariants", mixinStandardHelpOptions = true,
+        description = {
+            "Print the cheap exact invariants (Euler characteristic, blocks, degree; c2.J and triple",
+            "intersections of three-folds; int c2^2 of four-folds) of Calabi-Yau configuration matrices.",
+            "Invariants are given for the canonical form, in its row order (0-based row indices)."})
+final class InvariantsCommand implements Callable<Integer> {
+    private static final ObjectMapper JSON = new ObjectMapper();
+
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--json", description = "One JSON object a line instead of text for humans.")
+    boolean json;
+
+    @Option(names = "--file", paramLabel = "F",
+            description = "Read configurations from F, one a line ('-' = standard input; '#' starts a comment; "
+                    + "anything after a tab is ignored). May be repeated.")
+    List<String> files = new ArrayList<>();
+
+    @Parameters(paramLabel = "CONFIG", arity = "0..*",
+            description = "Configurations such as 4:5 or 2:3/2:3 (rows n:d1,...,dK joined by '/').")
+    List<String> configs = new ArrayList<>();
+
+    private final InvariantCalculator calculator = new InvariantCalculator();
+    private PrintWriter out;
+    private PrintWriter err;
+    private int bad;
+
+    @Override
+    public Integer call() {
+        out = spec.commandLine().getOut();
+        err = spec.commandLine().getErr();
+        if (configs.isEmpty() && files.isEmpty()) {
+            err.println("winnow invariants: no configuration given (pass CONFIG arguments or --file F)");
+            err.flush();
+            return WinnowCli.EXIT_BAD_INPUT;
+        }
+        for (int i = 0; i < configs.size(); i++) {
+            process(configs.get(i), 1, "argument " + (i + 1));
+        }
+        for (String file : files) {
+            processFile(file);
+        }
+        out.flush();
+        err.flush();
+        return bad == 0 ? 0 : WinnowCli.EXIT_BAD_INPUT;
+    }
+
+    private void processFile(String file) {
+        String name = "-".equals(file) ? "standard input" : file;
+        try (BufferedReader reader = "-".equals(file)
+                ? new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8))
+                : Files.newBufferedReader(Path.of(file), StandardCharsets.UTF_8);
+                ProgressBar progress = progressBar(name)) {
+            String line;
+            int number = 0;
+            while ((line = reader.readLine()) != null) {
+                number++;
+                String body = ConfigurationText.stripComment(line);
+                if (body != null) {
+                    process(body, number, name + " line " + number);
+                }
+                if (progress != null) {
+                    progress.step();
+                }
+            }
+        } catch (NoSuchFileException e) {
+            reportBad(name, "", "no such file");
+        } catch (IOException e) {
+            reportBad(name, "", "cannot read: " + e.getMessage());
+        }
+    }
+
+    /** A progress bar on stderr for long file runs, only when a person is watching. */
+    private ProgressBar progressBar(String name) {
+        if (System.console() == null) {
+            return null;
+        }
+        return new ProgressBarBuilder().setTaskName("invariants " + name).setInitialMax(-1)
+                .setConsumer(new ConsoleProgressBarConsumer(System.err)).build();
+    }
+
+    private void process(String text, int lineNumber, String source) {
+        String input = text.strip();
+        Configuration c;
+        try {
+            c = ConfigurationText.parse(input, lineNumber);
+        } catch (ConfigurationFormatException e) {
+            // The source already names the line; keep the column.
+            reportBad(source, input, "column " + e.column() + ": " + stripLinePrefix(e.getMessage()));
+            return;
+        }
+        Optional<String> problem = ConfigurationValidator.problemForCalabiYau(c);
+        if (problem.isPresent()) {
+            reportBad(source, input, problem.get());
+            return;
+        }
+        try {
+            Configuration canonical = c.canonical();
+            CheapInvariants inv = calculator.compute(canonical);
+            out.println(json ? toJson(input, canonical, inv) : toText(input, canonical, inv));
+        } catch (IllegalArgumentException | ArithmeticException e) {
+            reportBad(source, input, e.getMessage());
+        }
+    }
+
+    private static String stripLinePrefix(String message) {
+        int afterColumn = message.indexOf(": ");
+        return message.startsWith("line ") && afterColumn >= 0 ? message.substring(afterColumn + 2) : message;
+    }
+
+    private void reportBad(String source, String input, String reason) {
+        bad++;
+        String what = input.isEmpty() ? source : source + " '" + input + "'";
+        err.println("winnow invariants: " + what + ": " + reason);
+    }
+
+    static String toJson(String input, Configuration canonical, CheapInvariants inv) {
+        ObjectNode o = JSON.createObjectNode();
+        o.put("input", input);
+        o.put("canonical", canonical.toText());
+        o.put("dim", inv.dim());
+        o.put("rows", canonical.rows());
+        o.put("cols", canonical.cols());
+        o.put("chi", inv.chi());
+        o.put("blocks", inv.blocks());
+        o.put("degree", inv.degree());
+        if (inv.dim() == 3) {
+            ArrayNode c2 = o.putArray("c2J");
+            for (long v : inv.c2J()) {
+                c2.add(v);
+            }
+            ObjectNode triple = o.putObject("triple");
+            for (TripleIntersection t : inv.triple()) {
+                triple.put(t.r() + "," + t.s() + "," + t.t(), t.value());
+            }
+        }
+        inv.c2sq().ifPresent(v -> o.put("c2sq", v));
+        try {
+            return JSON.writeValueAsString(o);
+        } catch (IOException e) {
+            throw new IllegalStateException("cannot write JSON for " + input, e);
+        }
+    }
+
+    static String toText(String input, Configuration canonical, CheapInvariants inv) {
+        StringBuilder sb = new StringBuilder();
+        sb.append(input).append("  canonical ").append(canonical.toText())
+                .append("  dim ").append(inv.dim())
+                .append("  chi ").append(inv.chi())
+                .append("  blocks ").append(inv.blocks())
+                .append("  degree ").append(inv.degree());
+        if (inv.dim() == 3) {
+            sb.append("  c2.J");
+            for (long v : inv.c2J()) {
+                sb.append(' ').append(v);
+            }
+            sb.append("  d_rst");
+            for (TripleIntersection t : inv.triple()) {
+                sb.append(' ').append(t.r()).append(',').append(t.s()).append(',').append(t.t())
+                        .append('=').append(t.value());
+            }
+        }
+        inv.c2sq().ifPresent(v -> sb.append("  int c2^2 ").append(v));
+        return sb.toString();
+    }
+}
