@@ -1,0 +1,118 @@
+package org.winnow.scorer.model;
+
+import org.winnow.geometry.Checks;
+
+/**
+ * Shape of the embedding network and the layout of its parameters in one flat {@code double[]}.
+ *
+ * <p>The network reads a configuration as a bipartite graph: one node per row (projective factor) and
+ * one per column (polynomial), an edge wherever the degree {@code q_rj} is non-zero, weighted by that
+ * degree. Each node starts from a few exact local features, then {@code rounds} rounds of message
+ * passing update the column nodes from their rows and the row nodes from their columns with small
+ * dense layers shared by all nodes. Sum- and max-pooling over each side, concatenated with exact
+ * global features, feed a two-layer readout to {@code R^dim}. Every step is a symmetric function of
+ * the node sets, so the embedding does not depend on row or column order, and no padding is needed.
+ *
+ * @param hidden width H of every node state
+ * @param rounds number of row-to-column plus column-to-row rounds
+ * @param readout width of the readout's hidden layer
+ * @param dim embedding dimension
+ */
+public record Architecture(int hidden, int rounds, int readout, int dim) {
+    /** Exact per-row features: n, row sum, support, largest entry, entries of at least 2. */
+    public static final int ROW_FEATURES = 5;
+    /** Exact per-column features: column sum, support, largest entry, dimension-weighted degree. */
+    public static final int COL_FEATURES = 4;
+    /** Exact global features: m, K, chi, non-zeros, entries of at least 2, sum n, rows with n = 1, sum n - K. */
+    public static final int GLOBAL_FEATURES = 8;
+
+    public Architecture {
+        Checks.requireArgument(hidden >= 1 && hidden <= 256, "hidden width must be in 1..256: %s", hidden);
+        Checks.requireArgument(rounds >= 0 && rounds <= 8, "rounds must be in 0..8: %s", rounds);
+        Checks.requireArgument(readout >= 1 && readout <= 1024, "readout width must be in 1..1024: %s", readout);
+        Checks.requireArgument(dim >= 1 && dim <= 64, "embedding dimension must be in 1..64: %s", dim);
+    }
+
+    /** The default shape: measured in docs/model.md. */
+    public static Architecture defaults(int dim) {
+        return new Architecture(12, 2, 24, dim);
+    }
+
+    /** Width of the pooled vector fed to the readout. */
+    public int pooledWidth() {
+        return 4 * hidden + GLOBAL_FEATURES;
+    }
+
+    // Layout, in order: row encoder, column encoder, per round (column update, row update), readout.
+
+    int rowEncW() {
+        return 0;
+    }
+
+    int rowEncB() {
+        return rowEncW() + hidden * ROW_FEATURES;
+    }
+
+    int colEncW() {
+        return rowEncB() + hidden;
+    }
+
+    int colEncB() {
+        return colEncW() + hidden * COL_FEATURES;
+    }
+
+    private int roundsStart() {
+        return colEncB() + hidden;
+    }
+
+    private int roundSize() {
+        return 2 * (2 * hidden * hidden + hidden);
+    }
+
+    /** Self weights of the column update in round t (H x H). */
+    int colSelf(int t) {
+        return roundsStart() + t * roundSize();
+    }
+
+    /** Message weights of the column update in round t (H x H). */
+    int colMsg(int t) {
+        return colSelf(t) + hidden * hidden;
+    }
+
+    int colBias(int t) {
+        return colMsg(t) + hidden * hidden;
+    }
+
+    int rowSelf(int t) {
+        return colBias(t) + hidden;
+    }
+
+    int rowMsg(int t) {
+        return rowSelf(t) + hidden * hidden;
+    }
+
+    int rowBias(int t) {
+        return rowMsg(t) + hidden * hidden;
+    }
+
+    int readW1() {
+        return roundsStart() + rounds * roundSize();
+    }
+
+    int readB1() {
+        return readW1() + readout * pooledWidth();
+    }
+
+    int readW2() {
+        return readB1() + readout;
+    }
+
+    int readB2() {
+        return readW2() + dim * readout;
+    }
+
+    /** Total number of parameters. */
+    public int parameterCount() {
+        return readB2() + dim;
+    }
+}

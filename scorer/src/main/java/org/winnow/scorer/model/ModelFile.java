@@ -1,0 +1,140 @@
+package org.winnow.scorer.model;
+
+import com.esotericsoftware.kryo.Kryo;
+import com.esotericsoftware.kryo.io.Input;
+import com.esotericsoftware.kryo.io.Output;
+import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.nio.file.StandardCopyOption;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
+import java.util.Arrays;
+import java.util.HexFormat;
+
+/**
+ * The {@code .wnm} container: {@link #MAGIC} (8 bytes), the format version (4 bytes, big-endian), the
+ * payload length (8 bytes), the SHA-256 of the payload (32 bytes), then the payload, which is Kryo with
+ * registration required and explicit class IDs, so a reader never instantiates a class it did not
+ * list. Every check that fails names the file and one reason.
+ */
+final class ModelFile {
+    static final byte[] MAGIC = "WNMODEL\u0000".getBytes(StandardCharsets.US_ASCII);
+    static final int VERSION = 1;
+    static final int HEADER = MAGIC.length + 4 + 8 + 32;
+
+    private ModelFile() {}
+
+    /** The record that is written as the payload. */
+    record Payload(Architecture architecture, double[] parameters, Normalisation normalisation,
+            ReferenceSet reference, Calibration calibration, TrainingMetadata metadata) {}
+
+    static Kryo kryo() {
+        Kryo kryo = new Kryo();
+        kryo.setRegistrationRequired(true);
+        kryo.setReferences(false);
+        kryo.register(int[].class, 100);
+        kryo.register(int[][].class, 101);
+        kryo.register(double[].class, 102);
+        kryo.register(double[][].class, 103);
+        kryo.register(long[].class, 104);
+        kryo.register(String[].class, 105);
+        kryo.register(Payload.class, 110);
+        kryo.register(Architecture.class, 111);
+        kryo.register(Normalisation.class, 112);
+        kryo.register(ReferenceSet.class, 113);
+        kryo.register(Calibration.class, 114);
+        kryo.register(TrainingMetadata.class, 115);
+        return kryo;
+    }
+
+    static byte[] payloadBytes(Payload payload) {
+        Output out = new Output(1 << 16, -1);
+        kryo().writeObject(out, payload);
+        return out.toBytes();
+    }
+
+    static byte[] sha256(byte[] bytes) {
+        try {
+            return MessageDigest.getInstance("SHA-256").digest(bytes);
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("SHA-256 is required of every Java platform", e);
+        }
+    }
+
+    static String hex(byte[] bytes) {
+        return HexFormat.of().formatHex(bytes);
+    }
+
+    /** Writes atomically: a temporary file beside the target, then a rename. */
+    static void write(Path path, byte[] payload) throws IOException {
+        ByteBuffer buf = ByteBuffer.allocate(HEADER + payload.length);
+        buf.put(MAGIC).putInt(VERSION).putLong(payload.length).put(sha256(payload)).put(payload);
+        Path dir = path.toAbsolutePath().getParent();
+        Path tmp = Files.createTempFile(dir, path.getFileName().toString(), ".tmp");
+        try {
+            Files.write(tmp, buf.array());
+            Files.move(tmp, path, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
+        } finally {
+            Files.deleteIfExists(tmp);
+        }
+    }
+
+    static Payload read(Path path) throws IOException {
+        byte[] all;
+        try {
+            all = Files.readAllBytes(path);
+        } catch (IOException e) {
+            throw new ModelFileException(path + ": cannot read the model file (" + e.getMessage() + ")");
+        }
+        int prefix = Math.min(all.length, MAGIC.length);
+        if (!Arrays.equals(all, 0, prefix, MAGIC, 0, prefix)) {
+            throw new ModelFileException(path + ": not a winnow model file (wrong magic header)");
+        }
+        if (all.length < HEADER) {
+            throw new ModelFileException(path + ": truncated model file (" + all.length
+                    + " bytes, shorter than the " + HEADER + "-byte header)");
+        }
+        ByteBuffer buf = ByteBuffer.wrap(all);
+        buf.position(MAGIC.length);
+        int version = buf.getInt();
+        if (version != VERSION) {
+            throw new ModelFileException(path + ": unsupported model format version " + version
+                    + " (this build reads version " + VERSION + ")");
+        }
+        long length = buf.getLong();
+        long actual = all.length - HEADER;
+        if (length != actual) {
+            throw new ModelFileException(path + (length > actual ? ": truncated model file" : ": padded model file")
+                    + " (header declares " + length + " payload bytes, file holds " + actual + ")");
+        }
+        byte[] expected = new byte[32];
+        buf.get(expected);
+        byte[] payload = Arrays.copyOfRange(all, HEADER, all.length);
+        if (!MessageDigest.isEqual(expected, sha256(payload))) {
+            throw new ModelFileException(path + ": checksum mismatch (the payload is corrupt: SHA-256 is "
+                    + hex(sha256(payload)) + ", header says " + hex(expected) + ")");
+        }
+        try (Input in = new Input(payload)) {
+            Payload p = kryo().readObject(in, Payload.class);
+            if (in.position() != payload.length) {
+                throw new ModelFileException(path + ": payload has " + (payload.length - in.position())
+                        + " trailing bytes");
+            }
+            return p;
+        } catch (RuntimeException e) {
+            throw new ModelFileException(path + ": payload does not decode (" + e.getClass().getSimpleName() + ": "
+                    + firstLine(e.getMessage()) + ")");
+        }
+    }
+
+    private static String firstLine(String s) {
+        if (s == null) {
+            return "no detail";
+        }
+        int nl = s.indexOf('\n');
+        return nl < 0 ? s : s.substring(0, nl);
+    }
+}
