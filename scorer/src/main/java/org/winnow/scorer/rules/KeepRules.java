@@ -1,0 +1,122 @@
+package org.winnow.scorer.rules;
+
+import java.util.ArrayList;
+import java.util.EnumMap;
+import java.util.List;
+import java.util.Map;
+import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.ExactInvariants;
+import org.winnow.pipeline.Reason;
+
+/**
+ * The complete rule set of a scan: ranges, the confidence a prediction needs before it may reject,
+ * and the novelty guard above which nothing is rejected on a prediction.
+ *
+ * <p>Decision order, so that every candidate gets exactly one reason: the exact ranges in the order
+ * given (the first violated one rejects); then the predicted ranges in the order given: if none is
+ * violated the candidate is kept in range (or undecided, when a predicted invariant is not determined),
+ * otherwise the first violated one rejects unless the novelty reaches the guard (kept as novel) or the
+ * confidence is below the threshold (kept with low confidence).
+ *
+ * <p>Immutable and thread-safe.
+ *
+ * @param ranges        at most one range per invariant
+ * @param minConfidence a prediction rejects only with at least this confidence, in [0, 1]
+ * @param noveltyGuard  a prediction rejects only with novelty below this, in (0, 1]
+ */
+public record KeepRules(List<RangeRule> ranges, double minConfidence, double noveltyGuard) {
+    /** Default confidence threshold. */
+    public static final double DEFAULT_MIN_CONFIDENCE = 0.9;
+    /** Default novelty guard. */
+    public static final double DEFAULT_NOVELTY_GUARD = 0.99;
+
+    public KeepRules {
+        ranges = List.copyOf(ranges);
+        Map<Invariant, RangeRule> seen = new EnumMap<>(Invariant.class);
+        for (RangeRule r : ranges) {
+            RangeRule before = seen.putIfAbsent(r.invariant(), r);
+            if (before != null) {
+                throw new RuleException(String.format("rule '%s': %s already has the rule '%s'; give one range per invariant",
+                        r, r.invariant().label(), before));
+            }
+        }
+        if (!(minConfidence >= 0 && minConfidence <= 1)) {
+            throw new RuleException(String.format("rule 'min-confidence %s': must be in [0, 1]", minConfidence));
+        }
+        if (!(noveltyGuard > 0 && noveltyGuard <= 1)) {
+            throw new RuleException(String.format("rule 'novelty %s': must be in (0, 1]", noveltyGuard));
+        }
+    }
+
+    /** Parses {@code --keep} values with the given thresholds. */
+    public static KeepRules of(List<String> keeps, double minConfidence, double noveltyGuard) {
+        List<RangeRule> ranges = new ArrayList<>();
+        for (String k : keeps) {
+            ranges.add(RangeRule.parse(k));
+        }
+        return new KeepRules(ranges, minConfidence, noveltyGuard);
+    }
+
+    /** The reason for the verdict on a candidate with these invariants, prediction and novelty. */
+    public Reason decide(ExactInvariants exact, Estimate estimate, double novelty) {
+        for (RangeRule r : ranges) {
+            if (r.invariant().exact() && !r.contains(exactValue(r.invariant(), exact))) {
+                return r.invariant().rejection();
+            }
+        }
+        boolean undecided = false;
+        RangeRule violated = null;
+        for (RangeRule r : ranges) {
+            if (r.invariant().exact()) {
+                continue;
+            }
+            Integer value = predictedValue(r.invariant(), estimate);
+            if (value == null) {
+                undecided = true;
+            } else if (!r.contains(value)) {
+                violated = r;
+                break;
+            }
+        }
+        if (violated == null) {
+            return undecided ? Reason.KEPT_UNDECIDED : Reason.KEPT_IN_RANGE;
+        }
+        if (novelty >= noveltyGuard) {
+            return Reason.KEPT_AS_NOVEL;
+        }
+        if (estimate.confidence() < minConfidence) {
+            return Reason.KEPT_LOW_CONFIDENCE;
+        }
+        return violated.invariant().rejection();
+    }
+
+    /** The rules as text lines, in the rules-file form, for manifests and logs. */
+    public List<String> describe() {
+        List<String> lines = new ArrayList<>();
+        for (RangeRule r : ranges) {
+            lines.add(RulesFile.KEEP + " " + r);
+        }
+        lines.add(RulesFile.MIN_CONFIDENCE + " " + minConfidence);
+        lines.add(RulesFile.NOVELTY + " " + noveltyGuard);
+        return lines;
+    }
+
+    static long exactValue(Invariant invariant, ExactInvariants e) {
+        return switch (invariant) {
+            case CHI -> e.chi();
+            case ROWS -> e.rows();
+            case COLS -> e.cols();
+            case DIM -> e.dim();
+            case BLOCKS -> e.blocks();
+            case H11, H21 -> throw new IllegalArgumentException(invariant.label() + " is not exact");
+        };
+    }
+
+    static Integer predictedValue(Invariant invariant, Estimate e) {
+        return switch (invariant) {
+            case H11 -> e.h11();
+            case H21 -> e.h21();
+            default -> throw new IllegalArgumentException(invariant.label() + " is not predicted");
+        };
+    }
+}

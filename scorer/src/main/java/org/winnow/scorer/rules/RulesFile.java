@@ -1,0 +1,82 @@
+package org.winnow.scorer.rules;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.OptionalDouble;
+
+/**
+ * The file form of the rules, one a line, {@code #} starting a comment:
+ * <pre>
+ * keep h11=4..6
+ * keep chi=-60..0
+ * min-confidence 0.9
+ * novelty 0.99
+ * </pre>
+ * Every error names the file, the line and the rule.
+ */
+public final class RulesFile {
+    static final String KEEP = "keep";
+    static final String MIN_CONFIDENCE = "min-confidence";
+    static final String NOVELTY = "novelty";
+
+    /**
+     * What a file says; thresholds it does not set are empty, so the command line or the defaults fill them.
+     */
+    public record Contents(List<String> keeps, OptionalDouble minConfidence, OptionalDouble noveltyGuard) {
+        public Contents {
+            keeps = List.copyOf(keeps);
+        }
+    }
+
+    private RulesFile() {}
+
+    /** Reads a rules file; {@link RuleException} for a bad line, {@link IOException} for a missing file. */
+    public static Contents read(Path file) throws IOException {
+        return parse(Files.readAllLines(file, StandardCharsets.UTF_8), file.toString());
+    }
+
+    /** Parses the lines of a rules file named {@code name} in messages. */
+    public static Contents parse(List<String> lines, String name) {
+        List<String> keeps = new ArrayList<>();
+        OptionalDouble minConfidence = OptionalDouble.empty();
+        OptionalDouble novelty = OptionalDouble.empty();
+        for (int i = 0; i < lines.size(); i++) {
+            String line = lines.get(i);
+            int hash = line.indexOf('#');
+            String body = (hash >= 0 ? line.substring(0, hash) : line).trim();
+            if (body.isEmpty()) {
+                continue;
+            }
+            String where = name + ":" + (i + 1);
+            String[] parts = body.split("\\s+", 2);
+            String value = parts.length > 1 ? parts[1].trim() : "";
+            try {
+                switch (parts[0]) {
+                    case KEEP -> {
+                        RangeRule.parse(value);
+                        keeps.add(value);
+                    }
+                    case MIN_CONFIDENCE -> minConfidence = OptionalDouble.of(number(body, value));
+                    case NOVELTY -> novelty = OptionalDouble.of(number(body, value));
+                    default -> throw new RuleException(String.format("rule '%s': expected '%s INVARIANT=LO..HI', '%s X' or '%s X'",
+                            body, KEEP, MIN_CONFIDENCE, NOVELTY));
+                }
+            } catch (RuleException e) {
+                throw new RuleException(where + ": " + e.getMessage());
+            }
+        }
+        return new Contents(keeps, minConfidence, novelty);
+    }
+
+    private static double number(String rule, String value) {
+        try {
+            return Double.parseDouble(value);
+        } catch (NumberFormatException e) {
+            throw new RuleException(String.format("rule '%s': '%s' is not a number", rule, value));
+        }
+    }
+}

@@ -1,0 +1,16 @@
+package org.winnow.scorer.stage;
+
+/**
+ * Makes the per-thread scoring parts. Called once by each worker, on its own thread, when its stage
+ * instance opens; must itself be thread-safe (it usually shares one loaded model).
+ */
+public interface ScoringFunctions {
+    /** A fresh invariant calculator for the calling thread. */
+    InvariantFunction newInvariants();
+
+    /** A fresh predictor for the calling thread. */
+    PredictionFunction newPredictions();
+
+    /** The checksum of the model behind the predictions, for the manifest. */
+    String modelChecksum();
+}

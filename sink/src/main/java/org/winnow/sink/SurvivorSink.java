@@ -1,0 +1,234 @@
+package org.winnow.sink;
+
+import java.io.IOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Clock;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.EnumMap;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.function.Supplier;
+import org.winnow.geometry.Checks;
+import org.winnow.pipeline.Reason;
+import org.winnow.pipeline.Scored;
+import org.winnow.pipeline.SourceReport;
+import org.winnow.pipeline.Stage;
+import org.winnow.pipeline.StageContext;
+import org.winnow.pipeline.Verdict;
+import org.winnow.pipeline.metrics.SinkMetrics;
+
+/**
+ * The sink stage of a one-process scan; see the package documentation for how a rerun continues.
+ *
+ * <p>{@link #open(Path, ScanInfo, SinkOptions, Clock, Supplier, CrashHook)} prepares the directory on
+ * the calling thread and tells where to resume; the stage methods then run on the sink thread and
+ * must see every seq from {@link #resumeFrom()} on, in order.
+ */
+public final class SurvivorSink implements Stage<Scored, Void> {
+    private final Path dir;
+    private final ScanInfo info;
+    private final SinkOptions options;
+    private final Clock clock;
+    private final Supplier<SourceReport> source;
+    private final CrashHook hook;
+    private final Checkpoint start;
+    private final Instant sessionStart;
+    private final Map<Reason, Long> counts = new EnumMap<>(Reason.class);
+    private final PartSeries survivors;
+    private final PartSeries rejects;
+    private SinkMetrics metrics;
+    private long nextSeq;
+    private long sinceCheckpoint;
+    private Instant lastCheckpoint;
+
+    private SurvivorSink(Path dir, ScanInfo info, SinkOptions options, Clock clock, Supplier<SourceReport> source,
+            CrashHook hook, Checkpoint start) throws IOException {
+        this.dir = dir;
+        this.info = info;
+        this.options = options;
+        this.clock = clock;
+        this.source = source;
+        this.hook = hook;
+        this.start = start;
+        this.sessionStart = clock.instant();
+        this.lastCheckpoint = sessionStart;
+        this.nextSeq = start.nextSeq();
+        for (Reason r : Reason.values()) {
+            counts.put(r, start.counts().getOrDefault(r.code(), 0L));
+        }
+        String format = "format " + ScanFiles.FORMAT_VERSION + ", run " + info.runId();
+        this.survivors = new PartSeries(dir, ScanFiles.SURVIVORS, options.linesPerFile(),
+                p -> "# winnow survivors, " + format + ", part " + p + "\n" + SurvivorLine.COLUMNS + "\n",
+                start.survivors(), hook);
+        this.rejects = new PartSeries(dir, ScanFiles.REJECTS, options.linesPerFile(),
+                p -> "# winnow rejects, " + format + ", part " + p + "\n" + RejectLine.COLUMNS + "\n",
+                start.rejects(), hook);
+    }
+
+    /**
+     * Opens {@code dir} for the scan {@code info}: creates it when missing, continues it when it holds
+     * a checkpoint of the same scan, and refuses a directory that holds anything else.
+     *
+     * @param source the source's counts so far, read at each checkpoint and at the end
+     */
+    public static SurvivorSink open(Path dir, ScanInfo info, SinkOptions options, Clock clock,
+            Supplier<SourceReport> source, CrashHook hook) throws IOException {
+        Objects.requireNonNull(info, "info");
+        Files.createDirectories(dir);
+        Path cp = dir.resolve(ScanFiles.CHECKPOINT);
+        Checkpoint start;
+        if (Files.exists(cp)) {
+            try {
+                start = ScanFiles.JSON.readValue(cp.toFile(), Checkpoint.class);
+            } catch (IOException e) {
+                throw new IOException(cp + ": unreadable checkpoint: " + e.getMessage(), e);
+            }
+            if (start.formatVersion() != ScanFiles.FORMAT_VERSION) {
+                throw new IOException(cp + ": checkpoint format " + start.formatVersion() + ", this version reads "
+                        + ScanFiles.FORMAT_VERSION);
+            }
+            if (!start.runId().equals(info.runId())) {
+                throw new IOException(dir + ": holds scan " + start.runId() + ", not " + info.runId()
+                        + " (other bounds, input, rules, model or file options); use a fresh directory");
+            }
+            if (!options.writeRejects() && start.rejects().totalLines() > 0) {
+                throw new IOException(dir + ": the scan writes rejects; rerun it with the rejects file on");
+            }
+            start = new Checkpoint(start.formatVersion(), start.runId(), start.nextSeq(), start.counts(),
+                    start.survivors(), start.rejects(), start.startedAt(), start.elapsedSeconds(), start.sessions() + 1);
+        } else {
+            try (var entries = Files.list(dir)) {
+                List<String> names = entries.map(p -> p.getFileName().toString()).toList();
+                if (!names.isEmpty()) {
+                    throw new IOException(dir + ": not empty and holds no checkpoint (found " + names.get(0)
+                            + "); give an empty or new directory");
+                }
+            }
+            start = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), 0, Map.of(), PartState.EMPTY, PartState.EMPTY,
+                    clock.instant(), 0, 1);
+        }
+        return new SurvivorSink(dir, info, options, clock, source, hook, start);
+    }
+
+    /** The first seq this session must receive; everything below was committed before. */
+    public long resumeFrom() {
+        return start.nextSeq();
+    }
+
+    @Override
+    public void open(StageContext<Void> ctx) {
+        metrics = new SinkMetrics(ctx.registry());
+    }
+
+    @Override
+    public void accept(Scored s) throws IOException {
+        Checks.requireState(s.seq() == nextSeq, "sink expected seq %s but got %s", nextSeq, s.seq());
+        if (s.verdict() == Verdict.KEEP) {
+            survivors.append(SurvivorLine.format(s));
+            metrics.survivorLine();
+        } else if (options.writeRejects()) {
+            rejects.append(RejectLine.format(s));
+        }
+        counts.merge(s.reason(), 1L, Long::sum);
+        metrics.record(s.reason());
+        nextSeq++;
+        sinceCheckpoint++;
+        if (survivors.hasSealed() || rejects.hasSealed() || sinceCheckpoint >= options.checkpointRecords()
+                || ((sinceCheckpoint & 255) == 0 && dueByTime())) {
+            checkpoint();
+        }
+    }
+
+    private boolean dueByTime() {
+        return Duration.between(lastCheckpoint, clock.instant()).compareTo(options.checkpointEvery()) >= 0;
+    }
+
+    /**
+     * Commits the end of the scan: seals the last parts, checkpoints, and writes the complete manifest.
+     * The counts must reconcile with the source's, or this throws and the manifest stays incomplete.
+     */
+    @Override
+    public void finish() throws IOException {
+        SourceReport report = source.get();
+        Checks.requireState(report.done(), "the sink finished before the source did");
+        long scored = scored();
+        Checks.requireState(scored == report.candidates(),
+                "counts do not reconcile: %s candidates but %s scored", report.candidates(), scored);
+        survivors.sealOpen();
+        rejects.sealOpen();
+        checkpoint();
+        hook.before("manifest");
+        writeManifest(true);
+    }
+
+    @Override
+    public void close() throws IOException {
+        try {
+            survivors.close();
+        } finally {
+            rejects.close();
+        }
+    }
+
+    private void checkpoint() throws IOException {
+        survivors.sync();
+        rejects.sync();
+        Map<String, Long> byCode = new LinkedHashMap<>();
+        counts.forEach((r, n) -> {
+            if (n > 0) {
+                byCode.put(r.code(), n);
+            }
+        });
+        Instant now = clock.instant();
+        Checkpoint cp = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), nextSeq, byCode, survivors.state(),
+                rejects.state(), start.startedAt(), elapsed(now), start.sessions());
+        hook.before("checkpoint");
+        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.CHECKPOINT), ScanFiles.JSON.writeValueAsBytes(cp));
+        metrics.checkpoint();
+        int before = survivors.published().size() + rejects.published().size();
+        survivors.publishSealed();
+        rejects.publishSealed();
+        for (int i = before; i < survivors.published().size() + rejects.published().size(); i++) {
+            metrics.file();
+        }
+        sinceCheckpoint = 0;
+        lastCheckpoint = now;
+        hook.before("manifest");
+        writeManifest(false);
+    }
+
+    private double elapsed(Instant now) {
+        return start.elapsedSeconds() + Duration.between(sessionStart, now).toNanos() / 1e9;
+    }
+
+    private long scored() {
+        return counts.values().stream().mapToLong(Long::longValue).sum();
+    }
+
+    private void writeManifest(boolean complete) throws IOException {
+        SourceReport report = source.get();
+        Map<String, Long> rejected = new LinkedHashMap<>();
+        Map<String, Long> kept = new LinkedHashMap<>();
+        for (Reason r : Reason.values()) {
+            (r.verdict() == Verdict.KEEP ? kept : rejected).put(r.code(), counts.get(r));
+        }
+        long rejectedSum = rejected.values().stream().mapToLong(Long::longValue).sum();
+        long keptSum = kept.values().stream().mapToLong(Long::longValue).sum();
+        Instant now = clock.instant();
+        double session = Duration.between(sessionStart, now).toNanos() / 1e9;
+        long scoredThisSession = scored() - start.counts().values().stream().mapToLong(Long::longValue).sum();
+        Manifest m = new Manifest(ScanFiles.FORMAT_VERSION, info.runId(), complete, info.source(), info.bounds(),
+                info.rules(), info.modelChecksum(),
+                new Manifest.Counts(report.items(), report.duplicates(), report.candidates(), report.badInputs(),
+                        rejectedSum + keptSum, rejectedSum, keptSum, rejected, kept, survivors.totalLines()),
+                report.badInputLines(),
+                new Manifest.Timings(start.startedAt(), now, elapsed(now), start.sessions(),
+                        session > 0 ? scoredThisSession / session : 0),
+                survivors.published(), rejects.published());
+        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.MANIFEST), ScanFiles.JSON.writeValueAsBytes(m));
+    }
+}
