@@ -269,7 +269,7 @@ public final class SpectralBounds {
     }
 
     /** Sound bounds by interval propagation when the rank boxes are too large to enumerate. */
-    private static Interval[] propagate(Chain a, Chain b) {
+    static Interval[] propagate(Chain a, Chain b) {
         int d = a.d;
         long[] hLo = new long[d + 1];
         long[] hHi = new long[d + 1];

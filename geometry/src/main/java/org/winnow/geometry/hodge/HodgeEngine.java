@@ -79,6 +79,11 @@ public final class HodgeEngine {
         this(DEFAULT_SEEDS, backend, System::nanoTime);
     }
 
+    /** The full engine: default seeds, system clock, the transferred Koszul complex as backend. */
+    public static HodgeEngine standard() {
+        return new HodgeEngine(new TransferredBackend());
+    }
+
     /** The Hodge numbers of {@code input}; never throws for bad input (it is refused with a reason). */
     public HodgeResult compute(Configuration input) {
         long start = nanoClock.getAsLong();
