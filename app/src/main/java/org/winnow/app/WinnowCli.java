@@ -13,6 +13,8 @@ import picocli.CommandLine.Command;
             CommandLine.HelpCommand.class,
             DemoCommand.class,
             InvariantsCommand.class,
+            TrainCommand.class,
+            EvaluateCommand.class,
         })
 public final class WinnowCli implements Runnable {
     /** Exit code for bad input; picocli also uses 2 for bad options. */

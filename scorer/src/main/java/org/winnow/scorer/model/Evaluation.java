@@ -1,0 +1,193 @@
+package org.winnow.scorer.model;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.TreeSet;
+import org.winnow.geometry.Checks;
+
+/**
+ * Held-out metrics of a frozen model: h11 accuracy, per-class recall and precision, the confusion
+ * matrix, a reliability table (stated confidence against observed accuracy) and, when one class was
+ * held out of training, how well novelty separates that class from the known ones (AUROC).
+ *
+ * @param examples known-class examples scored
+ * @param accuracy share of known-class examples with the right h11
+ * @param classes every h11 seen as truth or prediction, ascending; rows and columns of {@code confusion}
+ * @param support true members per class
+ * @param recall per class (NaN without members)
+ * @param precision per class (NaN when never predicted)
+ * @param confusion {@code confusion[true][predicted]} counts over known-class examples
+ * @param reliability confidence bins
+ * @param holdoutClass the class held out of training, or null
+ * @param holdoutExamples how many examples of it were scored
+ * @param noveltyAuroc probability that a held-out example is more novel than a known one (ties half);
+ *     NaN without a held-out class
+ * @param truth true h11 per scored example (known classes first, then the held-out class)
+ * @param predicted predicted h11, same order
+ * @param confidence stated confidence, same order
+ * @param novelty novelty, same order
+ */
+public record Evaluation(int examples, double accuracy, int[] classes, int[] support, double[] recall,
+        double[] precision, int[][] confusion, List<Bin> reliability, Integer holdoutClass, int holdoutExamples,
+        double noveltyAuroc, int[] truth, int[] predicted, double[] confidence, double[] novelty) {
+
+    /** Upper edges of the reliability bins (the last bin is closed at 1). */
+    public static final double[] BIN_EDGES = {0.5, 0.6, 0.7, 0.8, 0.9, 0.95, 0.99, 1.0};
+
+    /**
+     * One reliability bin, {@code [low, high)}.
+     *
+     * @param count examples whose confidence falls in the bin
+     * @param meanConfidence their mean stated confidence
+     * @param accuracy their observed accuracy
+     */
+    public record Bin(double low, double high, int count, double meanConfidence, double accuracy) {}
+
+    /** Scores every example; those of {@code holdoutClass} (may be null) only count for novelty. */
+    public static Evaluation of(FrozenModel model, List<LabelledExample> examples, Integer holdoutClass) {
+        Checks.requireArgument(!examples.isEmpty(), "nothing to evaluate");
+        List<LabelledExample> known = new ArrayList<>();
+        List<LabelledExample> novel = new ArrayList<>();
+        for (LabelledExample e : examples) {
+            (holdoutClass != null && e.h11() == holdoutClass ? novel : known).add(e);
+        }
+        int n = known.size() + novel.size();
+        int[] truth = new int[n];
+        int[] pred = new int[n];
+        double[] conf = new double[n];
+        double[] nov = new double[n];
+        Predictor p = model.newPredictor();
+        for (int i = 0; i < n; i++) {
+            LabelledExample e = i < known.size() ? known.get(i) : novel.get(i - known.size());
+            truth[i] = e.h11();
+            pred[i] = p.score(e.config(), e.chi());
+            conf[i] = p.confidence();
+            nov[i] = p.novelty();
+        }
+        int kn = known.size();
+        TreeSet<Integer> seen = new TreeSet<>();
+        for (int i = 0; i < kn; i++) {
+            seen.add(truth[i]);
+            seen.add(pred[i]);
+        }
+        int[] classes = seen.stream().mapToInt(Integer::intValue).toArray();
+        int[][] confusion = new int[classes.length][classes.length];
+        int correct = 0;
+        for (int i = 0; i < kn; i++) {
+            confusion[Arrays.binarySearch(classes, truth[i])][Arrays.binarySearch(classes, pred[i])]++;
+            correct += truth[i] == pred[i] ? 1 : 0;
+        }
+        int[] support = new int[classes.length];
+        double[] recall = new double[classes.length];
+        double[] precision = new double[classes.length];
+        for (int c = 0; c < classes.length; c++) {
+            int row = 0;
+            int col = 0;
+            for (int d = 0; d < classes.length; d++) {
+                row += confusion[c][d];
+                col += confusion[d][c];
+            }
+            support[c] = row;
+            recall[c] = row == 0 ? Double.NaN : confusion[c][c] / (double) row;
+            precision[c] = col == 0 ? Double.NaN : confusion[c][c] / (double) col;
+        }
+        List<Bin> bins = new ArrayList<>();
+        double low = 0;
+        for (double high : BIN_EDGES) {
+            int count = 0;
+            double sumConf = 0;
+            int ok = 0;
+            for (int i = 0; i < kn; i++) {
+                boolean in = conf[i] >= low && (conf[i] < high || (high == 1.0 && conf[i] <= 1.0));
+                if (in) {
+                    count++;
+                    sumConf += conf[i];
+                    ok += truth[i] == pred[i] ? 1 : 0;
+                }
+            }
+            bins.add(new Bin(low, high, count, count == 0 ? Double.NaN : sumConf / count,
+                    count == 0 ? Double.NaN : ok / (double) count));
+            low = high;
+        }
+        double auroc = Double.NaN;
+        if (!novel.isEmpty() && kn > 0) {
+            auroc = auroc(Arrays.copyOfRange(nov, kn, n), Arrays.copyOfRange(nov, 0, kn));
+        }
+        return new Evaluation(kn, kn == 0 ? Double.NaN : correct / (double) kn, classes, support, recall, precision,
+                confusion, List.copyOf(bins), holdoutClass, novel.size(), auroc, truth, pred, conf, nov);
+    }
+
+    /** The smallest recall over classes with at least {@code minSupport} true members (NaN if none). */
+    public double minRecall(int minSupport) {
+        double min = Double.NaN;
+        for (int c = 0; c < classes.length; c++) {
+            if (support[c] >= minSupport && !(recall[c] >= min)) {
+                min = recall[c];
+            }
+        }
+        return min;
+    }
+
+    /**
+     * Among known-class examples a rule would reject (confidence at least {@code minConfidence} and
+     * novelty below {@code noveltyGuard}): their share and their accuracy, {@code {coverage, accuracy}}.
+     */
+    public double[] decisive(double minConfidence, double noveltyGuard) {
+        int count = 0;
+        int ok = 0;
+        for (int i = 0; i < examples; i++) {
+            if (confidence[i] >= minConfidence && novelty[i] < noveltyGuard) {
+                count++;
+                ok += truth[i] == predicted[i] ? 1 : 0;
+            }
+        }
+        return new double[] {examples == 0 ? Double.NaN : count / (double) examples,
+            count == 0 ? Double.NaN : ok / (double) count};
+    }
+
+    /**
+     * Area under the ROC curve of {@code positives} against {@code negatives} by the rank-sum
+     * (Mann-Whitney) statistic, ties counting one half. Common practice, no source.
+     */
+    public static double auroc(double[] positives, double[] negatives) {
+        Checks.requireArgument(positives.length > 0 && negatives.length > 0, "AUROC needs both groups");
+        double[] neg = negatives.clone();
+        Arrays.sort(neg);
+        double sum = 0;
+        for (double x : positives) {
+            int below = lowerBound(neg, x);
+            int notAbove = upperBound(neg, x);
+            sum += below + 0.5 * (notAbove - below);
+        }
+        return sum / ((double) positives.length * neg.length);
+    }
+
+    private static int lowerBound(double[] a, double x) {
+        int lo = 0;
+        int hi = a.length;
+        while (lo < hi) {
+            int mid = (lo + hi) >>> 1;
+            if (a[mid] < x) {
+                lo = mid + 1;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+
+    private static int upperBound(double[] a, double x) {
+        int lo = 0;
+        int hi = a.length;
+        while (lo < hi) {
+            int mid = (lo + hi) >>> 1;
+            if (a[mid] <= x) {
+                lo = mid + 1;
+            } else {
+                hi = mid;
+            }
+        }
+        return lo;
+    }
+}
