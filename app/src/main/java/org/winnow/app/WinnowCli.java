@@ -15,6 +15,8 @@ import picocli.CommandLine.Command;
             InvariantsCommand.class,
             TrainCommand.class,
             EvaluateCommand.class,
+            HodgeCommand.class,
+            LabelCommand.class,
         })
 public final class WinnowCli implements Runnable {
     /** Exit code for bad input; picocli also uses 2 for bad options. */
