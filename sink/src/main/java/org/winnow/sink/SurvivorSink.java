@@ -73,7 +73,8 @@ public final class SurvivorSink implements Stage<Scored, Void> {
      * Opens {@code dir} for the scan {@code info}: creates it when missing, continues it when it holds
      * a checkpoint of the same scan, and refuses a directory that holds anything else.
      *
-     * @param source the source's counts so far, read at each checkpoint and at the end
+     * @param source the source's counts so far, read at each checkpoint and at the end; null before the
+     *               source has started
      */
     public static SurvivorSink open(Path dir, ScanInfo info, SinkOptions options, Clock clock,
             Supplier<SourceReport> source, CrashHook hook) throws IOException {
@@ -81,7 +82,8 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         Files.createDirectories(dir);
         Path cp = dir.resolve(ScanFiles.CHECKPOINT);
         Checkpoint start;
-        if (Files.exists(cp)) {
+        boolean fresh = !Files.exists(cp);
+        if (!fresh) {
             try {
                 start = ScanFiles.JSON.readValue(cp.toFile(), Checkpoint.class);
             } catch (IOException e) {
@@ -111,7 +113,14 @@ public final class SurvivorSink implements Stage<Scored, Void> {
             start = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), 0, Map.of(), PartState.EMPTY, PartState.EMPTY,
                     clock.instant(), 0, 1);
         }
-        return new SurvivorSink(dir, info, options, clock, source, hook, start);
+        SurvivorSink sink = new SurvivorSink(dir, info, options, clock, source, hook, start);
+        if (fresh) {
+            // Mark the directory as this scan's at once, so that even a run that fails before its first
+            // checkpoint leaves a manifest saying it is incomplete, and a rerun recognises the directory.
+            sink.writeCheckpoint();
+            sink.writeManifest(false);
+        }
+        return sink;
     }
 
     /** The first seq this session must receive; everything below was committed before. */
@@ -177,17 +186,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
     private void checkpoint() throws IOException {
         survivors.sync();
         rejects.sync();
-        Map<String, Long> byCode = new LinkedHashMap<>();
-        counts.forEach((r, n) -> {
-            if (n > 0) {
-                byCode.put(r.code(), n);
-            }
-        });
-        Instant now = clock.instant();
-        Checkpoint cp = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), nextSeq, byCode, survivors.state(),
-                rejects.state(), start.startedAt(), elapsed(now), start.sessions());
-        hook.before("checkpoint");
-        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.CHECKPOINT), ScanFiles.JSON.writeValueAsBytes(cp));
+        Instant now = writeCheckpoint();
         metrics.checkpoint();
         int before = survivors.published().size() + rejects.published().size();
         survivors.publishSealed();
@@ -201,6 +200,22 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         writeManifest(false);
     }
 
+    /** Records the current state; the open parts must have been synced. Returns the time recorded. */
+    private Instant writeCheckpoint() throws IOException {
+        Map<String, Long> byCode = new LinkedHashMap<>();
+        counts.forEach((r, n) -> {
+            if (n > 0) {
+                byCode.put(r.code(), n);
+            }
+        });
+        Instant now = clock.instant();
+        Checkpoint cp = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), nextSeq, byCode, survivors.state(),
+                rejects.state(), start.startedAt(), elapsed(now), start.sessions());
+        hook.before("checkpoint");
+        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.CHECKPOINT), ScanFiles.JSON.writeValueAsBytes(cp));
+        return now;
+    }
+
     private double elapsed(Instant now) {
         return start.elapsedSeconds() + Duration.between(sessionStart, now).toNanos() / 1e9;
     }
@@ -210,7 +225,8 @@ public final class SurvivorSink implements Stage<Scored, Void> {
     }
 
     private void writeManifest(boolean complete) throws IOException {
-        SourceReport report = source.get();
+        SourceReport found = source.get();
+        SourceReport report = found != null ? found : new SourceReport(0, 0, 0, 0, 0, List.of(), false);
         Map<String, Long> rejected = new LinkedHashMap<>();
         Map<String, Long> kept = new LinkedHashMap<>();
         for (Reason r : Reason.values()) {

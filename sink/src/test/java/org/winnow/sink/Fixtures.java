@@ -139,7 +139,7 @@ final class Fixtures {
     static LocalPipeline.Result run(Path dir, CandidateSource source, SinkOptions options, CrashHook hook, long failAt,
             MeterRegistry registry) throws IOException, PipelineException, InterruptedException {
         AtomicReference<Sequencer> seq = new AtomicReference<>();
-        SurvivorSink sink = SurvivorSink.open(dir, INFO, options, tickingClock(), () -> seq.get().report(), hook);
+        SurvivorSink sink = SurvivorSink.open(dir, INFO, options, tickingClock(), () -> seq.get() == null ? null : seq.get().report(), hook);
         return new LocalPipeline(new LocalPipeline.Options(2, 8, 64), registry)
                 .run(source, BadInputPolicy.SKIP, sink.resumeFrom(), i -> new FakeScorer(failAt), sink, seq::set);
     }

@@ -1,0 +1,244 @@
+package org.winnow.app;
+
+import io.micrometer.core.instrument.binder.jvm.JvmGcMetrics;
+import io.micrometer.core.instrument.binder.jvm.JvmMemoryMetrics;
+import io.micrometer.core.instrument.binder.jvm.JvmThreadMetrics;
+import io.micrometer.core.instrument.binder.system.ProcessorMetrics;
+import io.micrometer.prometheusmetrics.PrometheusConfig;
+import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Clock;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.OptionalDouble;
+import java.util.concurrent.Callable;
+import java.util.concurrent.atomic.AtomicReference;
+import org.winnow.app.scan.InputFileSource;
+import org.winnow.app.scan.MetricsServer;
+import org.winnow.app.scan.ScanJob;
+import org.winnow.app.scan.StatusPrinter;
+import org.winnow.pipeline.BadInputException;
+import org.winnow.pipeline.BadInputPolicy;
+import org.winnow.pipeline.CandidateSource;
+import org.winnow.pipeline.local.LocalPipeline;
+import org.winnow.pipeline.local.PipelineException;
+import org.winnow.scorer.rules.KeepRules;
+import org.winnow.scorer.rules.RuleException;
+import org.winnow.scorer.rules.RulesFile;
+import org.winnow.scorer.stage.ModelScoring;
+import org.winnow.sink.CrashHook;
+import org.winnow.sink.Manifest;
+import org.winnow.sink.SinkOptions;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code winnow scan}: the main job in one JVM. Candidates from an input file or an enumeration,
+ * scored by N threads with a frozen model and the keep rules, survivors written to a directory that a
+ * rerun continues.
+ */
+@Command(name = "scan", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {
+            "Score candidates with a frozen model and keep rules; write the survivors to DIR.",
+            "Rerunning with the same DIR continues from the last committed point."})
+final class ScanCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--model", required = true, paramLabel = "M", description = "The frozen model (.wnm).")
+    Path model;
+
+    @Option(names = "--input", paramLabel = "F", description = "Configurations to scan, one a line.")
+    Path input;
+
+    @Option(names = "--keep", paramLabel = "INVARIANT=LO..HI",
+            description = "Keep range (repeatable): h11, h21 (predicted); chi, rows, cols, dim, blocks (exact). "
+                    + "LO.. and ..HI are one-sided; a single value means LO = HI.")
+    List<String> keeps = new ArrayList<>();
+
+    @Option(names = "--rules-file", paramLabel = "F",
+            description = "Rules, one a line: 'keep INVARIANT=LO..HI', 'min-confidence X', 'novelty X'.")
+    Path rulesFile;
+
+    @Option(names = "--min-confidence", paramLabel = "X",
+            description = "A prediction rejects only with at least this vote share (default 0.9).")
+    Double minConfidence;
+
+    @Option(names = "--novelty", paramLabel = "X",
+            description = "A prediction rejects only with novelty below this (default 0.99).")
+    Double novelty;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "The scan directory.")
+    Path out;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Scorer threads (default: the number of processors).")
+    Integer threads;
+
+    @Option(names = "--metrics-port", paramLabel = "P",
+            description = "Serve Prometheus metrics on http://127.0.0.1:P/metrics (0 picks a free port).")
+    Integer metricsPort;
+
+    @Option(names = "--strict", description = "Fail on the first malformed input line instead of skipping it.")
+    boolean strict;
+
+    @Option(names = "--rejects", description = "Also write the rejected candidates with their reasons.")
+    boolean rejects;
+
+    @Option(names = "--lines-per-file", paramLabel = "N", description = "Survivor lines per file (default ${DEFAULT-VALUE}).")
+    int linesPerFile = 100_000;
+
+    @Option(names = "--queue", paramLabel = "N", description = "Capacity of each in-memory queue (default ${DEFAULT-VALUE}).")
+    int queue = 1024;
+
+    @Override
+    public Integer call() throws InterruptedException {
+        PrintWriter err = spec.commandLine().getErr();
+        ScanJob.Settings settings;
+        try {
+            settings = settings();
+        } catch (StartupException e) {
+            return fail(err, e.getMessage());
+        }
+        PrometheusMeterRegistry registry = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
+        new JvmMemoryMetrics().bindTo(registry);
+        new JvmThreadMetrics().bindTo(registry);
+        new ProcessorMetrics().bindTo(registry);
+        AtomicReference<StatusPrinter> printer = new AtomicReference<>();
+        try (JvmGcMetrics gc = new JvmGcMetrics(); MetricsServer server = metricsServer(registry)) {
+            gc.bindTo(registry);
+            if (server != null) {
+                err.println("winnow scan: metrics on http://127.0.0.1:" + server.port() + "/metrics");
+                err.flush();
+            }
+            ScanJob.Outcome outcome;
+            try {
+                outcome = ScanJob.run(settings, registry, Clock.systemUTC(), CrashHook.NONE, s -> printer.set(
+                        StatusPrinter.start(s, System.err, System::nanoTime)));
+            } finally {
+                if (printer.get() != null) {
+                    printer.get().close();
+                }
+            }
+            summary(outcome.manifest());
+            return 0;
+        } catch (PipelineException e) {
+            Throwable cause = e.getCause();
+            if (cause instanceof BadInputException) {
+                return fail(err, input + " " + cause.getMessage() + " (--strict)");
+            }
+            err.println("winnow scan: stopped: " + cause);
+            err.println("winnow scan: what was committed stays; rerun the same command to continue");
+            err.flush();
+            return 1;
+        } catch (IOException e) {
+            return fail(err, e.getMessage());
+        }
+    }
+
+    private MetricsServer metricsServer(PrometheusMeterRegistry registry) throws IOException {
+        return metricsPort == null ? null : new MetricsServer(registry, metricsPort);
+    }
+
+    private void summary(Manifest m) {
+        PrintWriter o = spec.commandLine().getOut();
+        Manifest.Counts c = m.counts();
+        o.printf(Locale.ROOT, "scan %s complete: %d candidates (%d duplicates, %d bad input lines), %d kept, %d rejected%n",
+                m.runId(), c.candidates(), c.duplicates(), c.badInput(), c.kept(), c.rejected());
+        c.keptByReason().forEach((k, v) -> {
+            if (v > 0) {
+                o.printf(Locale.ROOT, "  kept     %-28s %d%n", k, v);
+            }
+        });
+        c.rejectedByReason().forEach((k, v) -> {
+            if (v > 0) {
+                o.printf(Locale.ROOT, "  rejected %-28s %d%n", k, v);
+            }
+        });
+        o.printf("survivors: %s (%d files)%n", out, m.survivorFiles().size());
+        o.flush();
+    }
+
+    private static int fail(PrintWriter err, String message) {
+        err.println("winnow scan: " + message);
+        err.flush();
+        return WinnowCli.EXIT_BAD_INPUT;
+    }
+
+    /** A problem found before any work starts; its message is the one line the user sees. */
+    private static final class StartupException extends Exception {
+        private static final long serialVersionUID = 1L;
+
+        StartupException(String message) {
+            super(message);
+        }
+    }
+
+    private ScanJob.Settings settings() throws StartupException {
+        KeepRules rules = rules();
+        if (threads != null && threads < 1) {
+            throw new StartupException("--threads must be at least 1, got " + threads);
+        }
+        if (queue < 1) {
+            throw new StartupException("--queue must be at least 1, got " + queue);
+        }
+        if (linesPerFile < 1) {
+            throw new StartupException("--lines-per-file must be at least 1, got " + linesPerFile);
+        }
+        if (metricsPort != null && (metricsPort < 0 || metricsPort > 65535)) {
+            throw new StartupException("--metrics-port must be in 0..65535, got " + metricsPort);
+        }
+        if (input == null) {
+            throw new StartupException("give --input F (a file of configurations)");
+        }
+        if (!Files.isReadable(input)) {
+            throw new StartupException("--input " + input + ": no such readable file");
+        }
+        CandidateSource source = new InputFileSource(input);
+        ModelScoring scoring;
+        try {
+            scoring = ModelScoring.load(model);
+        } catch (IOException | RuntimeException e) {
+            String msg = e.getMessage() == null ? e.toString() : e.getMessage();
+            throw new StartupException("--model " + model + ": " + (msg.startsWith(model.toString()) ? msg.substring(
+                    model.toString().length()).replaceFirst("^:\\s*", "") : msg));
+        }
+        int workers = threads != null ? threads : Runtime.getRuntime().availableProcessors();
+        return new ScanJob.Settings(source, input, null, null, scoring, rules, out,
+                new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5)),
+                new LocalPipeline.Options(workers, queue, Math.max(8 * queue, 64)),
+                strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP);
+    }
+
+    private KeepRules rules() throws StartupException {
+        List<String> all = new ArrayList<>();
+        OptionalDouble fileConfidence = OptionalDouble.empty();
+        OptionalDouble fileNovelty = OptionalDouble.empty();
+        try {
+            if (rulesFile != null) {
+                RulesFile.Contents c = RulesFile.read(rulesFile);
+                all.addAll(c.keeps());
+                fileConfidence = c.minConfidence();
+                fileNovelty = c.noveltyGuard();
+            }
+        } catch (IOException e) {
+            throw new StartupException("--rules-file " + rulesFile + ": cannot read (" + e.getMessage() + ")");
+        } catch (RuleException e) {
+            throw new StartupException(e.getMessage());
+        }
+        all.addAll(keeps);
+        double conf = minConfidence != null ? minConfidence : fileConfidence.orElse(KeepRules.DEFAULT_MIN_CONFIDENCE);
+        double nov = novelty != null ? novelty : fileNovelty.orElse(KeepRules.DEFAULT_NOVELTY_GUARD);
+        try {
+            return KeepRules.of(all, conf, nov);
+        } catch (RuleException e) {
+            throw new StartupException(e.getMessage());
+        }
+    }
+}

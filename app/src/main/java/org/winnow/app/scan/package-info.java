@@ -1,0 +1,5 @@
+/**
+ * {@code winnow scan} in one JVM: the input-file source, the run identity, the wiring of source,
+ * scorer workers and sink, the live status line and the Prometheus endpoint.
+ */
+package org.winnow.app.scan;

@@ -1,0 +1,143 @@
+package org.winnow.app.scan;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import io.micrometer.prometheusmetrics.PrometheusConfig;
+import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
+import java.net.URI;
+import java.net.http.HttpClient;
+import java.net.http.HttpRequest;
+import java.net.http.HttpResponse;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Clock;
+import java.time.Duration;
+import java.util.List;
+import java.util.OptionalLong;
+import java.util.concurrent.atomic.AtomicReference;
+import java.util.regex.Matcher;
+import java.util.regex.Pattern;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.winnow.pipeline.BadInputPolicy;
+import org.winnow.pipeline.local.LocalPipeline;
+import org.winnow.pipeline.local.PipelineException;
+import org.winnow.scorer.rules.KeepRules;
+import org.winnow.scorer.stage.ModelScoring;
+import org.winnow.sink.CrashHook;
+import org.winnow.sink.Manifest;
+import org.winnow.sink.SinkOptions;
+
+class ScanJobTest {
+    private static ScanJob.Settings settings(ScanFixtures.Input in, Path out) {
+        return new ScanJob.Settings(new InputFileSource(in.file()), in.file(), null, null,
+                new ModelScoring(ScanFixtures.model()), KeepRules.of(List.of("h11=2..5", "chi=-150..0"), 0.5, 0.9), out,
+                new SinkOptions(30, true, 40, Duration.ofSeconds(1)), new LocalPipeline.Options(2, 8, 64),
+                BadInputPolicy.SKIP);
+    }
+
+    private static double sum(String scrape, String metric) {
+        Matcher m = Pattern.compile("(?m)^" + metric + "(\\{[^}]*\\})? ([0-9.eE+-]+)$").matcher(scrape);
+        double s = 0;
+        while (m.find()) {
+            s += Double.parseDouble(m.group(2));
+        }
+        return s;
+    }
+
+    @Test
+    void theMetricsEndpointReconcilesWithTheManifest(@TempDir Path dir) throws Exception {
+        ScanFixtures.Input in = ScanFixtures.input(dir, 9, 300);
+        PrometheusMeterRegistry registry = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
+        AtomicReference<ScanStatus> status = new AtomicReference<>();
+        try (MetricsServer server = new MetricsServer(registry, 0)) {
+            ScanJob.Outcome o = ScanJob.run(settings(in, dir.resolve("out")), registry, Clock.systemUTC(), CrashHook.NONE,
+                    status::set);
+            HttpResponse<String> r = HttpClient.newHttpClient().send(HttpRequest.newBuilder(
+                    URI.create("http://127.0.0.1:" + server.port() + "/metrics")).build(), HttpResponse.BodyHandlers.ofString());
+            assertEquals(200, r.statusCode());
+            assertTrue(r.headers().firstValue("Content-Type").orElse("").startsWith("text/plain"));
+            String text = r.body();
+            Manifest.Counts c = o.manifest().counts();
+            assertEquals(c.candidates(), sum(text, "winnow_source_candidates_total"));
+            assertEquals(c.scored(), sum(text, "winnow_scorer_verdicts_total"));
+            assertEquals(c.scored(), sum(text, "winnow_sink_records_total"));
+            assertEquals(c.rejected(), sum(text, "winnow_scorer_verdicts_total\\{reason=\"[^\"]*\",verdict=\"reject\"\\}"));
+            assertEquals(c.kept(), sum(text, "winnow_scorer_verdicts_total\\{reason=\"[^\"]*\",verdict=\"keep\"\\}"));
+            for (var e : c.rejectedByReason().entrySet()) {
+                assertEquals((double) e.getValue(), sum(text, "winnow_scorer_verdicts_total\\{reason=\"" + e.getKey()
+                        + "\",verdict=\"reject\"\\}"), e.getKey());
+            }
+            for (var e : c.keptByReason().entrySet()) {
+                assertEquals((double) e.getValue(), sum(text, "winnow_scorer_verdicts_total\\{reason=\"" + e.getKey()
+                        + "\",verdict=\"keep\"\\}"), e.getKey());
+            }
+            assertEquals(c.duplicates(), sum(text, "winnow_source_duplicates_total"));
+            assertEquals(c.badInput(), sum(text, "winnow_source_bad_input_total"));
+            assertTrue(text.contains("winnow_channel_depth{channel=\"candidates\"}"), "no channel gauge");
+            assertTrue(o.pipeline().maxCandidateDepth() <= 8 && o.pipeline().maxScoredDepth() <= 8);
+        }
+        String line = status.get().line(1_000_000_000L);
+        assertTrue(line.startsWith(String.format("%,d scored", status.get().scored())), line);
+        assertTrue(line.contains("rejected ") && line.contains("kept as novel"), line);
+    }
+
+    @Test
+    void abortedWithTheRealModelAndRerunGivesTheSameFiles(@TempDir Path dir) throws Exception {
+        ScanFixtures.Input in = ScanFixtures.input(dir, 21, 500);
+        Path ref = dir.resolve("ref");
+        ScanJob.run(settings(in, ref), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT), Clock.systemUTC(),
+                CrashHook.NONE, s -> {});
+        Path resumed = dir.resolve("resumed");
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(5);
+        int aborts = 0;
+        for (int i = 0; i < 10; i++) {
+            int at = 1 + rnd.nextInt(25);
+            int[] calls = {0};
+            try {
+                ScanJob.run(settings(in, resumed), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT), Clock.systemUTC(),
+                        step -> {
+                            if (++calls[0] == at) {
+                                throw new IllegalStateException("crash before " + step);
+                            }
+                        }, s -> {});
+            } catch (PipelineException e) {
+                aborts++;
+            }
+        }
+        ScanJob.Outcome done = ScanJob.run(settings(in, resumed), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT),
+                Clock.systemUTC(), CrashHook.NONE, s -> {});
+        assertTrue(aborts >= 5, "aborts " + aborts);
+        Manifest a = Manifest.read(ref.resolve("manifest.json"));
+        assertEquals(a.counts(), done.manifest().counts());
+        assertEquals(a.survivorFiles(), done.manifest().survivorFiles());
+        for (String f : a.survivorFiles()) {
+            assertEquals(Files.readString(ref.resolve(f)), Files.readString(resumed.resolve(f)), f);
+        }
+        for (String f : a.rejectFiles()) {
+            assertEquals(Files.readString(ref.resolve(f)), Files.readString(resumed.resolve(f)), f);
+        }
+    }
+
+    @Test
+    void statusShowsRatesSharesAndAnEta() {
+        var reg = new io.micrometer.core.instrument.simple.SimpleMeterRegistry();
+        var metrics = new org.winnow.pipeline.metrics.ScorerMetrics(reg);
+        ScanStatus st = new ScanStatus(reg, () -> new org.winnow.pipeline.SourceReport(0, 0, 0, 0, 0, List.of(), false),
+                OptionalLong.of(1000));
+        st.line(0);
+        var cfg = org.winnow.geometry.Configuration.parse("4:5");
+        var cand = new org.winnow.pipeline.Candidate(cfg, "4:5", 0, 0);
+        var inv = new org.winnow.pipeline.ExactInvariants(3, -200, 1, 1, 1);
+        var est = new org.winnow.pipeline.Estimate(1, 1, 101, "");
+        for (int i = 0; i < 100; i++) {
+            org.winnow.pipeline.Reason r = i < 30 ? org.winnow.pipeline.Reason.EXACT_CHI_OUT_OF_RANGE
+                    : i < 40 ? org.winnow.pipeline.Reason.KEPT_AS_NOVEL : org.winnow.pipeline.Reason.KEPT_IN_RANGE;
+            metrics.scored(org.winnow.pipeline.Scored.of(cand, inv, est, 0.5, r), 10);
+        }
+        // 100 scored in 2 s: 50/s; 900 left: 18 s.
+        assertEquals("100 scored, 50/s, rejected 30.0% (exact-chi-out-of-range 30.0%), kept as novel 10, ETA 0:00:18",
+                st.line(2_000_000_000L));
+    }
+}

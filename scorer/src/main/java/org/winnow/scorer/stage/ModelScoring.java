@@ -1,0 +1,58 @@
+package org.winnow.scorer.stage;
+
+import java.io.IOException;
+import java.nio.file.Path;
+import java.util.Objects;
+import org.winnow.pipeline.Estimate;
+import org.winnow.scorer.model.FrozenModel;
+import org.winnow.scorer.model.Prediction;
+import org.winnow.scorer.model.Predictor;
+
+/**
+ * Scoring with a frozen model: exact invariants from the geometry calculator, predictions from the
+ * model's per-thread {@link Predictor}.
+ *
+ * <p>A candidate of another dimension than the model's reference set is outside what the model knows:
+ * its prediction is passed on, but with novelty 1 and no derived h21, so no rule can reject it on the
+ * model's word.
+ */
+public final class ModelScoring implements ScoringFunctions {
+    private final FrozenModel model;
+
+    public ModelScoring(FrozenModel model) {
+        this.model = Objects.requireNonNull(model, "model");
+    }
+
+    /** Loads and verifies a {@code .wnm} file; the exception message is one line naming the file. */
+    public static ModelScoring load(Path file) throws IOException {
+        return new ModelScoring(FrozenModel.load(file));
+    }
+
+    @Override
+    public InvariantFunction newInvariants() {
+        return new CheapInvariantFunction();
+    }
+
+    @Override
+    public PredictionFunction newPredictions() {
+        Predictor predictor = model.newPredictor();
+        int modelDim = model.dimension();
+        return (config, exact) -> {
+            Prediction p = predictor.predict(config, exact.chi());
+            boolean known = exact.dim() == modelDim;
+            double confidence = Math.min(1.0, Math.max(0.0, p.confidence()));
+            return new Predicted(new Estimate(p.h11(), confidence, known ? p.h21() : null, p.nearestReference()),
+                    known ? p.novelty() : 1.0);
+        };
+    }
+
+    @Override
+    public String modelChecksum() {
+        return model.checksum();
+    }
+
+    /** The dimension of the model's reference set. */
+    public int dimension() {
+        return model.dimension();
+    }
+}
