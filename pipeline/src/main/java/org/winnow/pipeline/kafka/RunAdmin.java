@@ -167,13 +167,30 @@ public final class RunAdmin implements AutoCloseable {
     public void claimModel(RunTopics run, String modelChecksum) {
         WireHeaders.modelStamp(modelChecksum);
         String mine = modelChecksum.trim().toLowerCase(java.util.Locale.ROOT);
-        String theirs;
-        try (RunLedger ledger = new RunLedger(settings, run)) {
-            theirs = ledger.settle(RunLedger.MODEL_KEY, mine, s -> s);
-        }
+        String theirs = settleClaim(run, RunLedger.MODEL_KEY, mine);
         if (!theirs.equals(mine)) {
             throw new ClusterRefusedException("run '" + run.runId() + "' is scored with model " + abbreviate(theirs)
                     + ", but this model is " + abbreviate(mine) + "; use the run's model or a new --run id");
+        }
+    }
+
+    /**
+     * Records that every stage of {@code run} uses {@code value} for {@code what} (the keep rules, say).
+     * The first claim is the run's; a stage that claims another value is refused.
+     */
+    public void claim(RunTopics run, String what, String value) {
+        Objects.requireNonNull(value, "value");
+        String theirs = settleClaim(run, "claim." + what, value);
+        if (!theirs.equals(value)) {
+            throw new ClusterRefusedException("run '" + run.runId() + "' uses other " + what + " ('"
+                    + theirs.replace('\n', ';') + "') than this stage ('" + value.replace('\n', ';')
+                    + "'); repeat the run's " + what + " or use a new --run id");
+        }
+    }
+
+    private String settleClaim(RunTopics run, String key, String value) {
+        try (RunLedger ledger = new RunLedger(settings, run)) {
+            return ledger.settle(key, value, s -> s);
         }
     }
 

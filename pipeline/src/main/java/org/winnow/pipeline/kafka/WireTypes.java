@@ -1,6 +1,12 @@
 package org.winnow.pipeline.kafka;
 
 import org.winnow.geometry.Configuration;
+import org.winnow.pipeline.Candidate;
+import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.ExactInvariants;
+import org.winnow.pipeline.Reason;
+import org.winnow.pipeline.Scored;
+import org.winnow.pipeline.Verdict;
 
 /**
  * The wire ids of every class that crosses a topic. An id, once shipped, is never reused for another
@@ -13,6 +19,12 @@ public final class WireTypes {
     public static final int LONG_ARRAY = 103;
     public static final int STRING_ARRAY = 104;
     public static final int CONFIGURATION = 110;
+    public static final int CANDIDATE = 120;
+    public static final int EXACT_INVARIANTS = 121;
+    public static final int ESTIMATE = 122;
+    public static final int SCORED = 123;
+    public static final int VERDICT = 124;
+    public static final int REASON = 125;
 
     private WireTypes() {
     }
@@ -26,5 +38,19 @@ public final class WireTypes {
                 .register(long[].class, LONG_ARRAY)
                 .register(String[].class, STRING_ARRAY)
                 .register(Configuration.class, CONFIGURATION, ConfigurationSerializer::new);
+    }
+
+    /**
+     * The base types plus the records that travel between the stages. Enums go by ordinal: every process
+     * of a run is the same build (the run's descriptor and model claim make sure of the rest).
+     */
+    public static KryoCodec.Builder stages() {
+        return base()
+                .register(Candidate.class, CANDIDATE)
+                .register(ExactInvariants.class, EXACT_INVARIANTS)
+                .register(Estimate.class, ESTIMATE)
+                .register(Scored.class, SCORED)
+                .register(Verdict.class, VERDICT)
+                .register(Reason.class, REASON);
     }
 }

@@ -46,6 +46,21 @@ class KryoCodecTest {
     }
 
     @Test
+    void stageRecordsRoundTripWithAndWithoutADerivedH21() {
+        KryoCodec stages = WireTypes.stages().build();
+        Configuration c = Configuration.parse("2:3,0/2:0,3/1:1,1");
+        org.winnow.pipeline.Candidate cand = new org.winnow.pipeline.Candidate(c, c.toText(), 3, 41L);
+        var exact = new org.winnow.pipeline.ExactInvariants(3, -108, 3, 2, 1);
+        for (Integer h21 : new Integer[] {null, 57}) {
+            var s = org.winnow.pipeline.Scored.of(cand, exact,
+                    new org.winnow.pipeline.Estimate(3, 0.75, h21, "4:5"), 0.125,
+                    org.winnow.pipeline.Reason.KEPT_LOW_CONFIDENCE);
+            assertEquals(s, stages.decode(stages.encode(s), org.winnow.pipeline.Scored.class));
+        }
+        assertEquals(cand, stages.decode(stages.encode(cand), org.winnow.pipeline.Candidate.class));
+    }
+
+    @Test
     void anUnregisteredClassIsRefusedOnWrite() {
         var e = assertThrows(IllegalArgumentException.class, () -> CODEC.encode(new Unregistered(1)));
         assertTrue(e.getMessage().contains("not registered"), e.getMessage());

@@ -1,0 +1,129 @@
+package org.winnow.app.cluster;
+
+import io.micrometer.core.instrument.MeterRegistry;
+import java.util.Objects;
+import org.winnow.pipeline.Candidate;
+import org.winnow.pipeline.Scored;
+import org.winnow.pipeline.StageContext;
+import org.winnow.pipeline.kafka.ClusterRefusedException;
+import org.winnow.pipeline.kafka.ExactlyOnceRelay;
+import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.KryoCodec;
+import org.winnow.pipeline.kafka.KryoSerde;
+import org.winnow.pipeline.kafka.RunAdmin;
+import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.kafka.WireHeaders;
+import org.winnow.pipeline.kafka.WireTypes;
+import org.winnow.scorer.rules.KeepRules;
+import org.winnow.scorer.stage.ScorerStage;
+import org.winnow.scorer.stage.ScoringFunctions;
+
+/**
+ * One scorer of a cluster run: the scan's own {@link ScorerStage}, fed from the run's candidates topic and
+ * writing to its scored topic through an {@link ExactlyOnceRelay}, so that a scorer killed at any point
+ * neither loses a candidate nor scores one twice. Several scorers of one run share the candidates in the
+ * consumer group {@code winnow-<run>-scorers}.
+ */
+public final class ClusterScorer implements AutoCloseable {
+    /** The consumer group of a run's scorers. */
+    public static String group(RunTopics run) {
+        return "winnow-" + run.runId() + "-scorers";
+    }
+
+    private final ExactlyOnceRelay<Candidate, Scored> relay;
+
+    private ClusterScorer(ExactlyOnceRelay<Candidate, Scored> relay) {
+        this.relay = relay;
+    }
+
+    /**
+     * Joins {@code run} as scorer {@code instance}. The run must exist; its model is the first one claimed,
+     * and its rules the first ones claimed: a scorer with another model or other rules is refused.
+     *
+     * @throws ClusterRefusedException when the broker, the run, the model or the rules do not fit
+     */
+    public static ClusterScorer join(KafkaSettings settings, RunTopics run, String instance,
+            ScoringFunctions scoring, KeepRules rules, MeterRegistry registry, ExactlyOnceRelay.Listener listener) {
+        try (RunAdmin admin = RunAdmin.connect(settings)) {
+            admin.requireRun(run);
+            admin.claimModel(run, scoring.modelChecksum());
+            admin.claim(run, "rules", String.join("\n", rules.describe()));
+        }
+        KryoCodec codec = WireTypes.stages().build();
+        ScorerStage stage = new ScorerStage(scoring, rules, System::nanoTime);
+        ForwardingContext ctx = new ForwardingContext(registry, instance);
+        try {
+            stage.open(ctx);
+        } catch (Exception e) {
+            throw new IllegalStateException("the scorer stage did not open: " + e.getMessage(), e);
+        }
+        ExactlyOnceRelay<Candidate, Scored> relay = new ExactlyOnceRelay<>(settings,
+                ExactlyOnceRelay.Options.of(run.candidates(), run.scored(), group(run), instance),
+                KryoSerde.of(codec, Candidate.class), KryoSerde.of(codec, Scored.class), WireHeaders.forRun(run),
+                WireHeaders.forRunAndModel(run, scoring.modelChecksum()),
+                (record, out) -> {
+                    ctx.out = out;
+                    try {
+                        stage.accept(record.value());
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                        throw new org.apache.kafka.common.errors.InterruptException(e);
+                    } finally {
+                        ctx.out = null;
+                    }
+                }, listener);
+        return new ClusterScorer(relay);
+    }
+
+    /** Scores until {@link #stop}; see {@link ExactlyOnceRelay#run}. */
+    public void run() {
+        relay.run();
+    }
+
+    /** Stops after the batch in hand; safe from any thread. */
+    public void stop() {
+        relay.stop();
+    }
+
+    @Override
+    public void close() {
+        relay.close();
+    }
+
+    /** The scorer stage's way downstream: into the relay's current transaction, keyed by candidate key. */
+    private static final class ForwardingContext implements StageContext<Scored> {
+        private final MeterRegistry registry;
+        private final String instance;
+        private ExactlyOnceRelay.Emitter<Scored> out;
+
+        ForwardingContext(MeterRegistry registry, String instance) {
+            this.registry = Objects.requireNonNull(registry, "registry");
+            this.instance = instance;
+        }
+
+        @Override
+        public String stageName() {
+            return "scorer-" + instance;
+        }
+
+        @Override
+        public int worker() {
+            return 0;
+        }
+
+        @Override
+        public int workers() {
+            return 1;
+        }
+
+        @Override
+        public MeterRegistry registry() {
+            return registry;
+        }
+
+        @Override
+        public void forward(Scored record) {
+            out.send(record.candidate().key(), record);
+        }
+    }
+}
