@@ -45,14 +45,25 @@ public final class IntersectionNumbers {
     private final int[] suppLen = new int[MAX_COLS];
     private final int[] indicator = new int[MAX_ROWS];
     private final int[] current = new int[MAX_ROWS];
+    /** Degree matrix, row-major with stride MAX_COLS, and per row the columns touching it. */
+    final int[] q = new int[MAX_ROWS * MAX_COLS];
+    final int[] rowCols = new int[MAX_ROWS * MAX_COLS];
+    final int[] rowColLen = new int[MAX_ROWS];
+    /** For d <= 4: the rows of each final exponent vector with multiplicity, 4 slots per entry. */
+    int[] entryRows = new int[4 * 64];
 
     private StateTable front = new StateTable();
     private StateTable back = new StateTable();
 
     private int m;
+    private int k;
     private int dim;
+    private boolean calabiYau;
 
-    /** Dense symmetric tables, stride m; filled for d = 3 (triples) and d = 4 (quartics). */
+    /**
+     * Dense symmetric tables, stride m, for d = 3 (triples) and d = 4 (quartics); filled on the
+     * first lookup after a computation, so callers that only need chi and c2.J never pay for them.
+     */
     private long[] triple = new long[0];
     private long[] quartic = new long[0];
     private final int[] written = new int[24 * 4096];
@@ -68,10 +79,30 @@ public final class IntersectionNumbers {
      * @throws ArithmeticException if an intersection number overflows a long
      */
     public int compute(Configuration c) {
-        clearDense();
         load(c);
-        run(c.cols());
-        fillDense();
+        return run();
+    }
+
+    /** Whether the last loaded input satisfies the Calabi-Yau condition (row sums n_r + 1). */
+    boolean calabiYau() {
+        return calabiYau;
+    }
+
+    /** Number of columns of the last input. */
+    int cols() {
+        return k;
+    }
+
+    /** Dimension {@code n_r} of row r of the last input. */
+    int n(int r) {
+        return n[r];
+    }
+
+    /** Runs the programme on the input of the last {@link #load}; see {@link #compute}. */
+    int run() {
+        clearDense();
+        runProgramme();
+        decodeEntries();
         return front.size;
     }
 
@@ -105,26 +136,55 @@ public final class IntersectionNumbers {
      * (length {@code >= d}); e.g. {@code J_0 J_2^2} gives {@code 0, 2, 2}. Returns d.
      */
     public int rowsOf(int i, int[] out) {
-        long key = front.key[i];
-        int k = 0;
+        if (dim <= 4) {
+            System.arraycopy(entryRows, 4 * i, out, 0, dim);
+            return dim;
+        }
+        return decodeRows(front.key[i], out, 0);
+    }
+
+    private int decodeRows(long key, int[] out, int offset) {
+        int len = 0;
         for (int r = 0; r < m; r++) {
             int a = n[r] - (int) ((key >>> shift[r]) & mask[r]);
             for (int e = 0; e < a; e++) {
-                out[k++] = r;
+                out[offset + len++] = r;
             }
         }
-        return k;
+        return len;
+    }
+
+    private void decodeEntries() {
+        if (dim > 4) {
+            return;
+        }
+        if (entryRows.length < 4 * front.size) {
+            entryRows = new int[Math.max(4 * front.size, 2 * entryRows.length)];
+        }
+        for (int i = 0; i < front.size; i++) {
+            decodeRows(front.key[i], entryRows, 4 * i);
+        }
     }
 
     /** {@code d_rst} of the last input, which must have dimension 3 (any index order, 0-based). */
     public long triple(int r, int s, int t) {
-        Checks.requireState(denseKind == 3, "triple intersections need dimension 3, the last input had %d", dim);
+        if (denseKind != 3) {
+            if (dim != 3) {
+                throw new IllegalStateException("triple intersections need dimension 3, the last input had " + dim);
+            }
+            fillDense();
+        }
         return triple[(r * m + s) * m + t];
     }
 
     /** {@code int_X J_r J_s J_t J_u} of the last input, which must have dimension 4. */
     public long quartic(int r, int s, int t, int u) {
-        Checks.requireState(denseKind == 4, "quartic intersections need dimension 4, the last input had %d", dim);
+        if (denseKind != 4) {
+            if (dim != 4) {
+                throw new IllegalStateException("quartic intersections need dimension 4, the last input had " + dim);
+            }
+            fillDense();
+        }
         return quartic[((r * m + s) * m + t) * m + u];
     }
 
@@ -161,36 +221,54 @@ public final class IntersectionNumbers {
         return Integer.compare(x.size(), y.size());
     }
 
-    private void load(Configuration c) {
+    /** Copies {@code c} into the workspace: shape, supports, row sums and key layout, in one pass. */
+    void load(Configuration c) {
         m = c.rows();
-        int k = c.cols();
-        dim = c.dimension();
+        k = c.cols();
         int bits = 0;
+        int ambient = 0;
+        boolean cy = true;
         for (int r = 0; r < m; r++) {
             n[r] = c.n(r);
+            ambient += n[r];
             int width = 32 - Integer.numberOfLeadingZeros(n[r]);
             shift[r] = bits;
             mask[r] = (1L << width) - 1;
             bits += width;
             remaining[r] = 0;
+            rowColLen[r] = 0;
         }
-        Checks.requireArgument(bits <= 64, "too large: exponent vectors of %s need %d bits", c, bits);
-        for (int j = 0; j < k; j++) {
-            int len = 0;
-            int base = j * MAX_ROWS;
-            for (int r = 0; r < m; r++) {
+        dim = ambient - k;
+        if (bits > 64) {
+            // Plain if: a varargs check would box its arguments on every call of the hot path.
+            throw new IllegalArgumentException("too large: exponent vectors of " + c + " need " + bits + " bits");
+        }
+        for (int r = 0; r < m; r++) {
+            int sum = 0;
+            int qBase = r * MAX_COLS;
+            for (int j = 0; j < k; j++) {
                 int v = c.q(r, j);
+                q[qBase + j] = v;
                 if (v > 0) {
+                    sum += v;
+                    int base = j * MAX_ROWS;
+                    int len = r == 0 ? 0 : suppLen[j];
                     suppRow[base + len] = r;
                     suppDeg[base + len] = v;
-                    len++;
-                    remaining[r]++;
+                    suppLen[j] = len + 1;
+                    rowCols[qBase + rowColLen[r]++] = j;
+                } else if (r == 0) {
+                    suppLen[j] = 0;
                 }
             }
-            suppLen[j] = len;
+            remaining[r] = rowColLen[r];
+            cy &= sum == n[r] + 1;
+        }
+        calabiYau = cy;
+        for (int j = 0; j < k; j++) {
             taken[j] = false;
         }
-        chooseOrder(k);
+        chooseOrder();
     }
 
     /**
@@ -198,7 +276,7 @@ public final class IntersectionNumbers {
      * its rows, sum of those counts, index), which finishes rows early and keeps the frontier small.
      * Leaves {@code remaining} as it found it.
      */
-    private void chooseOrder(int k) {
+    private void chooseOrder() {
         for (int r = 0; r < m; r++) {
             current[r] = remaining[r];
         }
@@ -233,7 +311,7 @@ public final class IntersectionNumbers {
         }
     }
 
-    private void run(int k) {
+    private void runProgramme() {
         front.clear();
         if (dim < 0) {
             return;

@@ -25,9 +25,10 @@ public final class InvariantCalculator {
     private static final int MAX_ROWS = Configuration.MAX_ROWS;
     private static final int MAX_COLS = Configuration.MAX_COLS;
 
+    /** {@code len! / prod(run!)} for the multiplicity patterns of up to four rows, by pattern code. */
+    private static final long[] FACTORIAL = {1, 1, 2, 6, 24};
+
     private final IntersectionNumbers intersections = new IntersectionNumbers();
-    private final int[] q = new int[MAX_ROWS * MAX_COLS];
-    private final int[] n = new int[MAX_ROWS];
     private final int[] rows = new int[MAX_ROWS];
     private final int[] distinct = new int[4];
     private final int[] counts = new int[4];
@@ -35,8 +36,6 @@ public final class InvariantCalculator {
     private final long[] c2Sums = new long[MAX_ROWS];
     private final int[] labels = new int[MAX_ROWS];
     private final int[] scratch = new int[MAX_ROWS];
-    private int m;
-    private int k;
 
     /** The intersection numbers of the last computation (valid until the next call). */
     public IntersectionNumbers intersections() {
@@ -58,16 +57,16 @@ public final class InvariantCalculator {
         long[] c2J = new long[0];
         OptionalLong c2sq = OptionalLong.empty();
         long chi;
-        if (closedFormApplies(c)) {
+        intersections.load(c);
+        if (closedFormApplies()) {
+            intersections.run();
+            chi = chiLoaded();
             if (d == 3) {
                 c2J = new long[c.rows()];
-                chi = threefold(c, c2J);
+                c2DotJThreefold(c2J);
                 triple = triples();
-            } else {
-                chi = chi(c);
-                if (d == 4) {
-                    c2sq = OptionalLong.of(c2SquaredCalabiYau());
-                }
+            } else if (d == 4) {
+                c2sq = OptionalLong.of(c2SquaredCalabiYau());
             }
         } else {
             ChernClasses chern = ChernClasses.of(c);
@@ -88,12 +87,17 @@ public final class InvariantCalculator {
      * takes the generic route.
      */
     public long chi(Configuration c) {
-        if (!closedFormApplies(c)) {
+        intersections.load(c);
+        if (!closedFormApplies()) {
             return ChernClasses.of(c).eulerCharacteristic();
         }
-        load(c);
-        intersections.compute(c);
-        switch (c.dimension()) {
+        intersections.run();
+        return chiLoaded();
+    }
+
+    /** chi by the closed form for the dimension of the loaded input (1..4, Calabi-Yau). */
+    private long chiLoaded() {
+        switch (intersections.dimension()) {
             case 1:
                 return 0;
             case 2:
@@ -113,9 +117,15 @@ public final class InvariantCalculator {
      * @throws IllegalArgumentException if the dimension is not 3 or {@code c2JOut} is too short
      */
     public long threefold(Configuration c, long[] c2JOut) {
-        Checks.requireArgument(c.dimension() == 3, "%s has dimension %d, not 3", c, c.dimension());
-        Checks.requireArgument(c2JOut.length >= c.rows(), "c2.J output of length %d for %d rows", c2JOut.length, c.rows());
-        if (!closedFormApplies(c)) {
+        // Plain ifs: varargs checks would box their arguments on every call of the hot path.
+        if (c2JOut.length < c.rows()) {
+            throw new IllegalArgumentException("c2.J output of length " + c2JOut.length + " for " + c.rows() + " rows");
+        }
+        intersections.load(c);
+        if (intersections.dimension() != 3) {
+            throw new IllegalArgumentException(c + " has dimension " + intersections.dimension() + ", not 3");
+        }
+        if (!closedFormApplies()) {
             ChernClasses chern = ChernClasses.of(c);
             long[] c2 = chern.c2DotJ();
             System.arraycopy(c2, 0, c2JOut, 0, c2.length);
@@ -123,8 +133,7 @@ public final class InvariantCalculator {
             intersections.compute(c);
             return chi;
         }
-        load(c);
-        intersections.compute(c);
+        intersections.run();
         long chi = chiThreefold();
         c2DotJThreefold(c2JOut);
         return chi;
@@ -139,29 +148,25 @@ public final class InvariantCalculator {
         return Blocks.label(c, labels, scratch);
     }
 
-    private static boolean closedFormApplies(Configuration c) {
-        int d = c.dimension();
-        return d >= 1 && d <= 4 && c.isCalabiYau();
-    }
-
-    private void load(Configuration c) {
-        m = c.rows();
-        k = c.cols();
-        for (int r = 0; r < m; r++) {
-            n[r] = c.n(r);
-            for (int j = 0; j < k; j++) {
-                q[r * MAX_COLS + j] = c.q(r, j);
-            }
-        }
+    /** Whether the loaded input takes the closed Calabi-Yau forms. */
+    private boolean closedFormApplies() {
+        int d = intersections.dimension();
+        return d >= 1 && d <= 4 && intersections.calabiYau();
     }
 
     /** {@code sum_j prod_i q[rows[i]][j]} over the first len entries of rows (with multiplicity). */
-    private long columnMoment(int[] rs, int len) {
+    private long columnMoment(int[] rs, int off, int len) {
+        // Only columns touching rs[0] contribute; walk that row's column list.
+        int[] q = intersections.q;
+        int[] cols = intersections.rowCols;
+        int base = rs[off] * MAX_COLS;
+        int count = intersections.rowColLen[rs[off]];
         long sum = 0;
-        for (int j = 0; j < k; j++) {
-            long p = q[rs[0] * MAX_COLS + j];
-            for (int i = 1; i < len && p != 0; i++) {
-                p = Math.multiplyExact(p, q[rs[i] * MAX_COLS + j]);
+        for (int i = 0; i < count; i++) {
+            int j = cols[base + i];
+            long p = q[base + j];
+            for (int e = 1; e < len && p != 0; e++) {
+                p = Math.multiplyExact(p, q[rs[off + e] * MAX_COLS + j]);
             }
             sum = Math.addExact(sum, p);
         }
@@ -173,20 +178,22 @@ public final class InvariantCalculator {
      * {@code (n_r+1)} if a = len e_r, minus the multinomial {@code len!/prod a_r!} times the column
      * moment.
      */
-    private long powerSumCoefficient(int[] rs, int len) {
-        long multinomial = ExactMath.factorial(len);
+    private long powerSumCoefficient(int[] rs, int off, int len) {
+        long runs = 1;
         int run = 1;
-        for (int i = 1; i <= len; i++) {
-            if (i < len && rs[i] == rs[i - 1]) {
+        for (int i = off + 1; i < off + len; i++) {
+            if (rs[i] == rs[i - 1]) {
                 run++;
             } else {
-                multinomial /= ExactMath.factorial(run);
+                runs *= FACTORIAL[run];
                 run = 1;
             }
         }
-        long value = -Math.multiplyExact(multinomial, columnMoment(rs, len));
-        if (rs[0] == rs[len - 1]) {
-            value += n[rs[0]] + 1;
+        runs *= FACTORIAL[run];
+        long multinomial = FACTORIAL[len] / runs;
+        long value = -Math.multiplyExact(multinomial, columnMoment(rs, off, len));
+        if (rs[off] == rs[off + len - 1]) {
+            value += intersections.n(rs[off]) + 1;
         }
         return value;
     }
@@ -195,38 +202,39 @@ public final class InvariantCalculator {
     private long p2Coefficient(int x, int y) {
         sub[0] = Math.min(x, y);
         sub[1] = Math.max(x, y);
-        return powerSumCoefficient(sub, 2);
+        return powerSumCoefficient(sub, 0, 2);
     }
 
     private long chiSurface() {
         long sum = 0;
+        int[] entryRows = intersections.entryRows;
         for (int i = 0; i < intersections.size(); i++) {
-            intersections.rowsOf(i, rows);
-            sum = Math.addExact(sum, Math.multiplyExact(powerSumCoefficient(rows, 2), intersections.value(i)));
+            sum = Math.addExact(sum, Math.multiplyExact(powerSumCoefficient(entryRows, 4 * i, 2), intersections.value(i)));
         }
         return -ExactMath.divideExactly(sum, 2, "int p2 of a surface");
     }
 
     private long chiThreefold() {
         long sum = 0;
+        int[] entryRows = intersections.entryRows;
         for (int i = 0; i < intersections.size(); i++) {
-            intersections.rowsOf(i, rows);
-            sum = Math.addExact(sum, Math.multiplyExact(powerSumCoefficient(rows, 3), intersections.value(i)));
+            sum = Math.addExact(sum, Math.multiplyExact(powerSumCoefficient(entryRows, 4 * i, 3), intersections.value(i)));
         }
         return ExactMath.divideExactly(sum, 3, "int p3 of a three-fold");
     }
 
     /** {@code c2.J_u = -(1/2) sum_{a: a_u > 0} coeff(p_2, a - e_u) I(a)}. */
     private void c2DotJThreefold(long[] out) {
+        int m = intersections.rows();
         for (int r = 0; r < m; r++) {
             c2Sums[r] = 0;
         }
+        int[] entryRows = intersections.entryRows;
         for (int i = 0; i < intersections.size(); i++) {
-            intersections.rowsOf(i, rows);
             long v = intersections.value(i);
-            int a = rows[0];
-            int b = rows[1];
-            int c = rows[2];
+            int a = entryRows[4 * i];
+            int b = entryRows[4 * i + 1];
+            int c = entryRows[4 * i + 2];
             // Each distinct row u of a once, with the remaining pair a - e_u.
             c2Sums[a] = Math.addExact(c2Sums[a], Math.multiplyExact(p2Coefficient(b, c), v));
             if (b != a) {
@@ -286,7 +294,7 @@ public final class InvariantCalculator {
         long sum = 0;
         for (int i = 0; i < intersections.size(); i++) {
             intersections.rowsOf(i, rows);
-            long coeff = Math.subtractExact(p2SquaredCoefficient(rows), Math.multiplyExact(2, powerSumCoefficient(rows, 4)));
+            long coeff = Math.subtractExact(p2SquaredCoefficient(rows), Math.multiplyExact(2, powerSumCoefficient(rows, 0, 4)));
             sum = Math.addExact(sum, Math.multiplyExact(coeff, intersections.value(i)));
         }
         return ExactMath.divideExactly(sum, 8, "int (p2^2 - 2 p4) of a four-fold");
