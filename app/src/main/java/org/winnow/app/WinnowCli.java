@@ -18,6 +18,9 @@ import picocli.CommandLine.Command;
             EvaluateCommand.class,
             HodgeCommand.class,
             LabelCommand.class,
+            ProduceCommand.class,
+            ScoreCommand.class,
+            SinkCommand.class,
         })
 public final class WinnowCli implements Runnable {
     /** Exit code for bad input; picocli also uses 2 for bad options. */

@@ -25,6 +25,9 @@ import org.winnow.scorer.stage.ScoringFunctions;
  * consumer group {@code winnow-<run>-scorers}.
  */
 public final class ClusterScorer implements AutoCloseable {
+    /** The run claim under which the scorers' keep rules are recorded, one rule a line. */
+    public static final String RULES_CLAIM = "rules";
+
     /** The consumer group of a run's scorers. */
     public static String group(RunTopics run) {
         return "winnow-" + run.runId() + "-scorers";
@@ -47,7 +50,7 @@ public final class ClusterScorer implements AutoCloseable {
         try (RunAdmin admin = RunAdmin.connect(settings)) {
             admin.requireRun(run);
             admin.claimModel(run, scoring.modelChecksum());
-            admin.claim(run, "rules", String.join("\n", rules.describe()));
+            admin.claim(run, RULES_CLAIM, String.join("\n", rules.describe()));
         }
         KryoCodec codec = WireTypes.stages().build();
         ScorerStage stage = new ScorerStage(scoring, rules, System::nanoTime);

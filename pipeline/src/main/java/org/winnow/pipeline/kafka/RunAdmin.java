@@ -188,6 +188,13 @@ public final class RunAdmin implements AutoCloseable {
         }
     }
 
+    /** The value claimed for {@code what} in {@code run}, or null when no stage has claimed one yet. */
+    public String claimed(RunTopics run, String what) {
+        try (RunLedger ledger = new RunLedger(settings, run)) {
+            return ledger.first("claim." + what);
+        }
+    }
+
     private String settleClaim(RunTopics run, String key, String value) {
         try (RunLedger ledger = new RunLedger(settings, run)) {
             return ledger.settle(key, value, s -> s);

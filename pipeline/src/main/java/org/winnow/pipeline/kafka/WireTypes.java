@@ -6,6 +6,7 @@ import org.winnow.pipeline.Estimate;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
+import org.winnow.pipeline.SourceReport;
 import org.winnow.pipeline.Verdict;
 
 /**
@@ -25,6 +26,8 @@ public final class WireTypes {
     public static final int SCORED = 123;
     public static final int VERDICT = 124;
     public static final int REASON = 125;
+    public static final int SHARD_PROGRESS = 130;
+    public static final int SOURCE_REPORT = 131;
 
     private WireTypes() {
     }
@@ -51,6 +54,8 @@ public final class WireTypes {
                 .register(Estimate.class, ESTIMATE)
                 .register(Scored.class, SCORED)
                 .register(Verdict.class, VERDICT)
-                .register(Reason.class, REASON);
+                .register(Reason.class, REASON)
+                .register(ShardProgress.class, SHARD_PROGRESS)
+                .register(SourceReport.class, SOURCE_REPORT, SourceReportSerializer::new);
     }
 }

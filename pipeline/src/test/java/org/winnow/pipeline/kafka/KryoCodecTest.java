@@ -61,6 +61,16 @@ class KryoCodecTest {
     }
 
     @Test
+    void shardProgressRoundTripsWithItsBadLines() {
+        KryoCodec stages = WireTypes.stages().build();
+        var report = new org.winnow.pipeline.SourceReport(40, 2, 36, 5, 2,
+                List.of(new org.winnow.pipeline.BadInput(7, "line 7: expected ':'"),
+                        new org.winnow.pipeline.BadInput(19, "not Calabi-Yau")), true);
+        ShardProgress p = new ShardProgress(0, 36, report);
+        assertEquals(p, stages.decode(stages.encode(p), ShardProgress.class));
+    }
+
+    @Test
     void anUnregisteredClassIsRefusedOnWrite() {
         var e = assertThrows(IllegalArgumentException.class, () -> CODEC.encode(new Unregistered(1)));
         assertTrue(e.getMessage().contains("not registered"), e.getMessage());

@@ -1,0 +1,95 @@
+package org.winnow.app;
+
+import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
+import java.io.PrintWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import org.winnow.app.cluster.ClusterProducer;
+import org.winnow.app.scan.InputFileSource;
+import org.winnow.app.scan.RunIds;
+import org.winnow.pipeline.BadInputException;
+import org.winnow.pipeline.BadInputPolicy;
+import org.winnow.pipeline.SourceReport;
+import org.winnow.pipeline.kafka.ClusterRefusedException;
+import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.kafka.TopicLayout;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code winnow produce --kafka HOST:PORT --run ID --input F}: creates a cluster run (its topics and
+ * descriptor) and sends the input's candidates, exactly once; run it again after a crash to resume.
+ */
+@Command(name = "produce", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {"Create a cluster run on Kafka and send its candidates from an input file, exactly once."})
+final class ProduceCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--kafka", required = true, paramLabel = "HOST:PORT", description = "Kafka bootstrap address.")
+    String kafka;
+
+    @Option(names = "--kafka-config", paramLabel = "F",
+            description = "Kafka client properties passed through (TLS, SASL, tuning).")
+    Path kafkaConfig;
+
+    @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to create or continue.")
+    String run;
+
+    @Option(names = "--input", required = true, paramLabel = "F", description = "Configurations, one a line.")
+    Path input;
+
+    @Option(names = "--partitions", paramLabel = "N",
+            description = "Partitions of the run's topics: the most scorers that can work at once (default ${DEFAULT-VALUE}).")
+    int partitions = 6;
+
+    @Option(names = "--replication", paramLabel = "N", description = "Replication factor (default ${DEFAULT-VALUE}).")
+    short replication = 1;
+
+    @Option(names = "--chunk", paramLabel = "N",
+            description = "Candidates per transaction (default ${DEFAULT-VALUE}).")
+    int chunk = 2000;
+
+    @Option(names = "--strict", description = "Fail on the first malformed input line instead of skipping it.")
+    boolean strict;
+
+    @Override
+    public Integer call() throws Exception {
+        PrintWriter err = spec.commandLine().getErr();
+        ClusterProducer.Settings settings;
+        try {
+            if (!Files.isReadable(input)) {
+                return fail(err, "--input " + input + ": no such readable file");
+            }
+            KafkaSettings k = kafkaConfig == null ? KafkaSettings.of(kafka) : KafkaSettings.of(kafka, kafkaConfig);
+            // The input's bytes identify the run's source, so a second producer with another file is refused.
+            String identity = input.getFileName() + " sha256:" + RunIds.of(List.of(), input);
+            settings = new ClusterProducer.Settings(k, new RunTopics(run), new TopicLayout(partitions, replication),
+                    new InputFileSource(input), identity, strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP, chunk);
+        } catch (IllegalArgumentException e) {
+            return fail(err, e.getMessage());
+        }
+        try {
+            SourceReport r = ClusterProducer.run(settings, new SimpleMeterRegistry());
+            spec.commandLine().getOut().printf("run %s: %d candidates sent (%d duplicates, %d bad input lines)%n",
+                    run, r.candidates(), r.duplicates(), r.badInputs());
+            spec.commandLine().getOut().flush();
+            return 0;
+        } catch (ClusterRefusedException e) {
+            return fail(err, e.getMessage());
+        } catch (BadInputException e) {
+            return fail(err, input + " " + e.getMessage() + " (--strict)");
+        }
+    }
+
+    private static int fail(PrintWriter err, String message) {
+        err.println("winnow produce: " + message);
+        err.flush();
+        return WinnowCli.EXIT_BAD_INPUT;
+    }
+}

@@ -1,0 +1,149 @@
+package org.winnow.app;
+
+import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.OptionalDouble;
+import java.util.concurrent.Callable;
+import java.util.concurrent.atomic.AtomicLong;
+import org.winnow.app.cluster.ClusterScorer;
+import org.winnow.pipeline.kafka.ClusterRefusedException;
+import org.winnow.pipeline.kafka.ExactlyOnceRelay;
+import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.scorer.rules.KeepRules;
+import org.winnow.scorer.rules.RulesFile;
+import org.winnow.scorer.stage.ModelScoring;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/**
+ * {@code winnow score --kafka HOST:PORT --run ID --model M ...}: one scorer of a cluster run. Start as many
+ * as the candidates topic has partitions; they share the work in one consumer group, and any of them may
+ * be killed and restarted without losing or repeating a candidate.
+ */
+@Command(name = "score", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {"Score a cluster run's candidates from Kafka, exactly once, until stopped (SIGTERM)."})
+final class ScoreCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--kafka", required = true, paramLabel = "HOST:PORT", description = "Kafka bootstrap address.")
+    String kafka;
+
+    @Option(names = "--kafka-config", paramLabel = "F",
+            description = "Kafka client properties passed through (TLS, SASL, tuning).")
+    Path kafkaConfig;
+
+    @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to join.")
+    String run;
+
+    @Option(names = "--model", required = true, paramLabel = "M", description = "The frozen model (.wnm).")
+    Path model;
+
+    @Option(names = "--keep", paramLabel = "INVARIANT=LO..HI", description = "Keep range (repeatable), as for scan.")
+    List<String> keeps = new ArrayList<>();
+
+    @Option(names = "--rules-file", paramLabel = "F", description = "Rules file, as for scan.")
+    Path rulesFile;
+
+    @Option(names = "--min-confidence", paramLabel = "X", description = "As for scan (default 0.9).")
+    Double minConfidence;
+
+    @Option(names = "--novelty", paramLabel = "X", description = "As for scan (default 0.99).")
+    Double novelty;
+
+    @Option(names = "--instance", paramLabel = "NAME",
+            description = "This scorer's name in the group; restart a killed scorer under the same name "
+                    + "(default: host name and process id).")
+    String instance;
+
+    @Override
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        KafkaSettings settings;
+        RunTopics topics;
+        KeepRules rules;
+        ModelScoring scoring;
+        try {
+            settings = kafkaConfig == null ? KafkaSettings.of(kafka) : KafkaSettings.of(kafka, kafkaConfig);
+            topics = new RunTopics(run);
+            rules = rules();
+        } catch (IllegalArgumentException e) {
+            return fail(err, e.getMessage());
+        } catch (IOException e) {
+            return fail(err, "--rules-file " + rulesFile + ": cannot read (" + e.getMessage() + ")");
+        }
+        try {
+            scoring = ModelScoring.load(model);
+        } catch (IOException | RuntimeException e) {
+            return fail(err, "--model " + model + ": " + e.getMessage());
+        }
+        String name = instance != null ? instance : defaultInstance();
+        AtomicLong scored = new AtomicLong();
+        ExactlyOnceRelay.Listener progress = new ExactlyOnceRelay.Listener() {
+            @Override
+            public void committed(int inputs, int outputs) {
+                scored.addAndGet(inputs);
+            }
+        };
+        try (ClusterScorer scorer = ClusterScorer.join(settings, topics, name, scoring, rules,
+                new SimpleMeterRegistry(), progress)) {
+            Thread main = Thread.currentThread();
+            Thread hook = new Thread(() -> {
+                scorer.stop();
+                try {
+                    main.join(15_000);
+                } catch (InterruptedException e) {
+                    Thread.currentThread().interrupt();
+                }
+            });
+            Runtime.getRuntime().addShutdownHook(hook);
+            err.println("winnow score: scorer " + name + " joined run " + run + " on " + kafka);
+            err.flush();
+            scorer.run();
+            err.println("winnow score: scorer " + name + " stopped after " + scored.get() + " candidates");
+            err.flush();
+            return 0;
+        } catch (ClusterRefusedException e) {
+            return fail(err, e.getMessage());
+        }
+    }
+
+    private KeepRules rules() throws IOException {
+        List<String> all = new ArrayList<>();
+        OptionalDouble fileConfidence = OptionalDouble.empty();
+        OptionalDouble fileNovelty = OptionalDouble.empty();
+        if (rulesFile != null) {
+            RulesFile.Contents c = RulesFile.read(rulesFile);
+            all.addAll(c.keeps());
+            fileConfidence = c.minConfidence();
+            fileNovelty = c.noveltyGuard();
+        }
+        all.addAll(keeps);
+        double conf = minConfidence != null ? minConfidence : fileConfidence.orElse(KeepRules.DEFAULT_MIN_CONFIDENCE);
+        double nov = novelty != null ? novelty : fileNovelty.orElse(KeepRules.DEFAULT_NOVELTY_GUARD);
+        return KeepRules.of(all, conf, nov);
+    }
+
+    private static String defaultInstance() {
+        String host;
+        try {
+            host = java.net.InetAddress.getLocalHost().getHostName();
+        } catch (IOException e) {
+            host = "host";
+        }
+        return host.replaceAll("[^A-Za-z0-9_-]", "-") + "-" + ProcessHandle.current().pid();
+    }
+
+    private static int fail(PrintWriter err, String message) {
+        err.println("winnow score: " + message);
+        err.flush();
+        return WinnowCli.EXIT_BAD_INPUT;
+    }
+}

@@ -1,0 +1,99 @@
+package org.winnow.app;
+
+import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.time.Clock;
+import java.time.Duration;
+import java.util.concurrent.Callable;
+import java.util.concurrent.atomic.AtomicBoolean;
+import org.winnow.app.cluster.ClusterSink;
+import org.winnow.pipeline.kafka.ClusterRefusedException;
+import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.sink.Manifest;
+import org.winnow.sink.SinkOptions;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code winnow sink --kafka HOST:PORT --run ID --out DIR}: writes a cluster run's survivors to the same
+ * files as {@code winnow scan}, exactly once; restarted with the same DIR it continues.
+ */
+@Command(name = "sink", mixinStandardHelpOptions = true, sortOptions = false,
+        description = {"Write a cluster run's survivors from Kafka to DIR; ends when the run is complete."})
+final class SinkCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--kafka", required = true, paramLabel = "HOST:PORT", description = "Kafka bootstrap address.")
+    String kafka;
+
+    @Option(names = "--kafka-config", paramLabel = "F",
+            description = "Kafka client properties passed through (TLS, SASL, tuning).")
+    Path kafkaConfig;
+
+    @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to write.")
+    String run;
+
+    @Option(names = "--out", required = true, paramLabel = "DIR", description = "The scan directory.")
+    Path out;
+
+    @Option(names = "--rejects", description = "Also write the rejected candidates with their reasons.")
+    boolean rejects;
+
+    @Option(names = "--lines-per-file", paramLabel = "N", description = "Survivor lines per file (default ${DEFAULT-VALUE}).")
+    int linesPerFile = 100_000;
+
+    @Override
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        KafkaSettings settings;
+        RunTopics topics;
+        SinkOptions options;
+        try {
+            settings = kafkaConfig == null ? KafkaSettings.of(kafka) : KafkaSettings.of(kafka, kafkaConfig);
+            topics = new RunTopics(run);
+            options = new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5));
+        } catch (IllegalArgumentException e) {
+            return fail(err, e.getMessage());
+        }
+        AtomicBoolean running = new AtomicBoolean(true);
+        Thread main = Thread.currentThread();
+        Runtime.getRuntime().addShutdownHook(new Thread(() -> {
+            running.set(false);
+            try {
+                main.join(15_000);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+        }));
+        try {
+            Manifest m = ClusterSink.run(settings, topics, out, options, Clock.systemUTC(), new SimpleMeterRegistry(),
+                    running);
+            if (m == null) {
+                err.println("winnow sink: stopped; what was committed stays; rerun the same command to continue");
+                err.flush();
+                return 1;
+            }
+            Manifest.Counts c = m.counts();
+            spec.commandLine().getOut().printf("run %s complete: %d candidates, %d kept, %d rejected; survivors in %s%n",
+                    run, c.candidates(), c.kept(), c.rejected(), out);
+            spec.commandLine().getOut().flush();
+            return 0;
+        } catch (ClusterRefusedException e) {
+            return fail(err, e.getMessage());
+        } catch (IOException e) {
+            return fail(err, e.getMessage());
+        }
+    }
+
+    private static int fail(PrintWriter err, String message) {
+        err.println("winnow sink: " + message);
+        err.flush();
+        return WinnowCli.EXIT_BAD_INPUT;
+    }
+}
