@@ -130,7 +130,7 @@ public final class RunAdmin implements AutoCloseable {
                 throw new ClusterRefusedException("interrupted while creating topic " + entry.getKey(), e);
             }
         }
-        requireTopics(run);
+        awaitTopics(run);
         RunDescriptor settled;
         try (RunLedger ledger = new RunLedger(settings, run)) {
             settled = ledger.settle(RunLedger.RUN_KEY, descriptor.toText(), RunDescriptor::parse);
@@ -231,6 +231,30 @@ public final class RunAdmin implements AutoCloseable {
     @Override
     public void close() {
         admin.close(settings.connectTimeout());
+    }
+
+    /**
+     * Waits for topics just created to show in the broker's metadata, which trails the controller's
+     * answer to the creation by a moment (longer on a loaded machine).
+     */
+    private void awaitTopics(RunTopics run) {
+        long deadline = System.nanoTime() + settings.connectTimeout().multipliedBy(6).toNanos();
+        while (true) {
+            try {
+                requireTopics(run);
+                return;
+            } catch (ClusterRefusedException e) {
+                if (System.nanoTime() > deadline) {
+                    throw e;
+                }
+            }
+            try {
+                Thread.sleep(100);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new ClusterRefusedException("interrupted while waiting for the run's topics", e);
+            }
+        }
     }
 
     private void requireTopics(RunTopics run) {

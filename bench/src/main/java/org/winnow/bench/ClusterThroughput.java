@@ -1,0 +1,137 @@
+package org.winnow.bench;
+
+import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Clock;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.SplittableRandom;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.atomic.AtomicBoolean;
+import org.apache.kafka.clients.admin.Admin;
+import org.apache.kafka.clients.admin.LogDirDescription;
+import org.winnow.app.WinnowCli;
+import org.winnow.app.cluster.ClusterProducer;
+import org.winnow.app.cluster.ClusterScorer;
+import org.winnow.app.cluster.ClusterSink;
+import org.winnow.app.scan.InputFileSource;
+import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
+import org.winnow.pipeline.BadInputPolicy;
+import org.winnow.pipeline.kafka.ExactlyOnceRelay;
+import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.kafka.TopicLayout;
+import org.winnow.scorer.model.Architecture;
+import org.winnow.scorer.model.FrozenModel;
+import org.winnow.scorer.model.Trainer;
+import org.winnow.scorer.model.TrainingOptions;
+import org.winnow.scorer.model.TrainingProgress;
+import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.rules.KeepRules;
+import org.winnow.scorer.stage.ModelScoring;
+import org.winnow.sink.Manifest;
+import org.winnow.sink.SinkOptions;
+
+/**
+ * Cluster mode against {@code winnow scan} on one machine: the same input (synthetic scenario, invented
+ * data), model and rules, scanned in one JVM and then run as producer, scorers and sink over a real broker
+ * on loopback (all in this JVM, so the comparison measures the transport, not process start-up). Prints
+ * candidates per second of both and the bytes per candidate the broker stored for the candidates and
+ * scored topics (lz4-compressed batches, headers included), which is what crossed the wire.
+ *
+ * <p>Run with {@code bench/cluster-throughput.sh [candidates] [scorers]}. Not a test.
+ */
+public final class ClusterThroughput {
+    private ClusterThroughput() {
+    }
+
+    public static void main(String[] args) throws Exception {
+        int count = args.length > 0 ? Integer.parseInt(args[0]) : 50_000;
+        int scorers = args.length > 1 ? Integer.parseInt(args[1]) : 2;
+        Path dir = Files.createTempDirectory("winnow-cluster-bench-");
+        FrozenModel model = Trainer.train(SyntheticScenario.generate(400, 5),
+                TrainingOptions.defaults(4, 11).withArchitecture(new Architecture(8, 2, 12, 4)).withEpochs(2)
+                        .withLabelSource("synthetic scenario"), TrainingProgress.silent());
+        Path modelFile = dir.resolve("bench.wnm");
+        model.save(modelFile);
+        SplittableRandom rnd = new SplittableRandom(2026L);
+        List<String> lines = new ArrayList<>();
+        for (int i = 0; i < count; i++) {
+            lines.add(SyntheticScenario.draw(rnd).toText());
+        }
+        Path input = Files.write(dir.resolve("input.txt"), lines);
+        List<String> keeps = List.of("h11=2..5", "chi=-150..0");
+
+        long t0 = System.nanoTime();
+        int exit = WinnowCli.commandLine().execute("scan", "--model", modelFile.toString(), "--input",
+                input.toString(), "--keep", keeps.get(0), "--keep", keeps.get(1), "--out",
+                dir.resolve("scan").toString());
+        double scanSeconds = (System.nanoTime() - t0) / 1e9;
+        if (exit != 0) {
+            throw new IllegalStateException("scan failed with exit " + exit);
+        }
+        Manifest scan = Manifest.read(dir.resolve("scan").resolve("manifest.json"));
+
+        try (EmbeddedKafkaBroker broker = EmbeddedKafkaBroker.start()) {
+            KafkaSettings kafka = KafkaSettings.of(broker.bootstrapServers());
+            RunTopics run = new RunTopics("bench");
+            KeepRules rules = KeepRules.of(keeps, KeepRules.DEFAULT_MIN_CONFIDENCE, KeepRules.DEFAULT_NOVELTY_GUARD);
+            ModelScoring scoring = new ModelScoring(model);
+            ExecutorService threads = Executors.newFixedThreadPool(scorers + 1);
+            long t1 = System.nanoTime();
+            Future<?> producer = threads.submit(() -> ClusterProducer.run(new ClusterProducer.Settings(kafka, run,
+                    TopicLayout.singleBroker(Math.max(scorers, 1) * 2), new InputFileSource(input), input.toString(),
+                    BadInputPolicy.SKIP, 2000), new SimpleMeterRegistry()));
+            // The run exists once the producer has created it; the scorers join it then.
+            while (true) {
+                try (Admin admin = Admin.create(kafka.common())) {
+                    if (admin.listTopics().names().get().containsAll(run.all())) {
+                        break;
+                    }
+                }
+                Thread.sleep(100);
+            }
+            List<ClusterScorer> joined = new ArrayList<>();
+            for (int i = 0; i < scorers; i++) {
+                ClusterScorer s = ClusterScorer.join(kafka, run, "s" + i, scoring, rules, new SimpleMeterRegistry(),
+                        ExactlyOnceRelay.Listener.NONE);
+                joined.add(s);
+                threads.submit(s::run);
+            }
+            Manifest cluster = ClusterSink.run(kafka, run, dir.resolve("cluster"), new SinkOptions(), Clock.systemUTC(),
+                    new SimpleMeterRegistry(), new AtomicBoolean(true));
+            double clusterSeconds = (System.nanoTime() - t1) / 1e9;
+            producer.get();
+            joined.forEach(ClusterScorer::stop);
+            threads.shutdown();
+            long candidates = cluster.counts().candidates();
+            Map<String, Long> sizes = topicSizes(kafka, run);
+            System.out.printf("candidates %d (scan %d); counts equal: %s%n", candidates, scan.counts().candidates(),
+                    scan.counts().equals(cluster.counts()));
+            System.out.printf("winnow scan      %.1f s  %.0f candidates/s%n", scanSeconds,
+                    scan.counts().candidates() / scanSeconds);
+            System.out.printf("cluster (%d sc.)  %.1f s  %.0f candidates/s%n", scorers, clusterSeconds,
+                    candidates / clusterSeconds);
+            System.out.printf("bytes/candidate  candidates topic %.1f, scored topic %.1f%n",
+                    sizes.get(run.candidates()) / (double) candidates, sizes.get(run.scored()) / (double) candidates);
+            joined.forEach(ClusterScorer::close);
+        }
+    }
+
+    private static Map<String, Long> topicSizes(KafkaSettings kafka, RunTopics run) throws Exception {
+        Map<String, Long> sizes = new java.util.HashMap<>();
+        try (Admin admin = Admin.create(kafka.common())) {
+            int node = admin.describeCluster().nodes().get().iterator().next().id();
+            Map<String, LogDirDescription> dirs = admin.describeLogDirs(List.of(node)).allDescriptions().get().get(node);
+            for (LogDirDescription d : dirs.values()) {
+                d.replicaInfos().forEach((tp, info) -> sizes.merge(tp.topic(), info.size(), Long::sum));
+            }
+        }
+        return sizes;
+    }
+}
