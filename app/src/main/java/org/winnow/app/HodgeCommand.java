@@ -53,6 +53,10 @@ final class HodgeCommand implements Callable<Integer> {
     @Parameters(paramLabel = "CONFIG", arity = "0..*", description = "Configurations such as 4:5 or 3:3,0,1/3:0,3,1.")
     List<String> configs = new ArrayList<>();
 
+    @Option(names = "--summary",
+            description = "After the results, print survey statistics (counts by status and method, timings) on stderr.")
+    boolean summary;
+
     @Option(names = "--threads", paramLabel = "N",
             description = "Worker threads (default 1); results keep the input order.")
     int threads = 1;
@@ -111,6 +115,7 @@ final class HodgeCommand implements Callable<Integer> {
     private void runJobs() {
         ThreadLocal<HodgeEngine> engines = ThreadLocal.withInitial(HodgeEngine::standard);
         ExecutorService pool = Executors.newFixedThreadPool(threads);
+        HodgeSummary stats = new HodgeSummary();
         try {
             List<Future<HodgeResult>> results = new ArrayList<>();
             for (Job job : jobs) {
@@ -119,9 +124,13 @@ final class HodgeCommand implements Callable<Integer> {
             for (int i = 0; i < jobs.size(); i++) {
                 Job job = jobs.get(i);
                 HodgeResult r = results.get(i).get();
+                stats.add(r);
                 out.println(json ? HodgeFormat.json(job.input(), job.canonical(), r)
                         : HodgeFormat.text(job.input(), job.canonical(), r));
                 out.flush();
+            }
+            if (summary) {
+                stats.print(err);
             }
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();

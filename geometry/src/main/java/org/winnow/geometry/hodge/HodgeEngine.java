@@ -17,6 +17,7 @@ import org.winnow.geometry.cohomology.InconsistentPageException;
 import org.winnow.geometry.cohomology.Interval;
 import org.winnow.geometry.cohomology.KoszulD1;
 import org.winnow.geometry.invariants.Blocks;
+import org.winnow.geometry.invariants.CheapInvariants;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.geometry.invariants.Reduction;
 
@@ -100,7 +101,18 @@ public final class HodgeEngine {
                         + ": Hodge numbers are computed for K3 surfaces, three-folds and four-folds", null, seconds(start));
             }
             Configuration x = Reduction.reduce(input);
-            chi = Optional.of(invariants.chi(x));
+            for (int j = 0; j < x.cols(); j++) {
+                if (x.colSum(j) == 0) {
+                    return HodgeResult.refused(input, chi, "empty: after reducing hyperplane columns, column " + (j + 1)
+                            + " is a nonzero constant", null, seconds(start));
+                }
+            }
+            CheapInvariants cheap = invariants.compute(x);
+            chi = Optional.of(cheap.chi());
+            if (cheap.degree() == 0) {
+                return HodgeResult.refused(input, chi, "empty: the degree int_X (J_1 + ... + J_m)^d is 0", null,
+                        seconds(start));
+            }
             int blocks = Blocks.of(x).count();
             if (blocks > 1) {
                 return HodgeResult.refused(input, chi, "block-diagonal matrix: a product of " + blocks
