@@ -35,6 +35,8 @@ final class SearchTree {
     /** Total of n+1 over the big rows t..m-1. */
     private final int[] bigCapFrom = new int[Configuration.MAX_ROWS + 1];
     private final int[] maxEntry = new int[Configuration.MAX_ROWS];
+    /** Per row being filled: how far each column is below its required sum before the row. */
+    private final int[][] deficit = new int[Configuration.MAX_ROWS][Configuration.MAX_COLS];
     private int[] n;
     private int m;
     private int k;
@@ -104,20 +106,38 @@ final class SearchTree {
             atLeaf();
             return;
         }
-        fillRow(t, 0, n[t] + 1, t > 0 && n[t] == n[t - 1]);
+        // the deficit this row must remove so that the rows after it can still cover the rest
+        int[] def = deficit[t];
+        int total = 0;
+        for (int j = 0; j < k; j++) {
+            int need = t >= bigRows && bigSum[j] == 0 ? 3 : 2;
+            def[j] = Math.max(0, need - colSum[j]);
+            total += def[j];
+        }
+        fillRow(t, 0, n[t] + 1, t > 0 && n[t] == n[t - 1], 0, total - capFrom[t + 1]);
     }
 
     /**
      * Chooses q[t][j..k-1] summing to {@code remaining}, values descending so that siblings come
      * in lex-descending order. {@code tight}: row t equals row t-1 (same n) on positions 0..j-1,
-     * so position j may not exceed the previous row's value.
+     * so position j may not exceed the previous row's value. Each unit placed removes at most one
+     * unit of column deficit, so a row that has removed {@code removed} and has {@code remaining}
+     * units left cannot reach {@code mustRemove} if their sum falls short.
      */
-    private void fillRow(int t, int j, int remaining, boolean tight) {
+    private void fillRow(int t, int j, int remaining, boolean tight, int removed, int mustRemove) {
+        if (removed + remaining < mustRemove) {
+            return;
+        }
         int[] row = q[t];
-        if (j == k) {
-            if (remaining == 0) {
-                rowDone(t);
+        if (remaining == 0) {
+            // zeros satisfy every upper bound, so the rest of the row is forced
+            for (int p = j; p < k; p++) {
+                row[p] = 0;
             }
+            rowDone(t);
+            return;
+        }
+        if (j == k) {
             return;
         }
         int starts = blockStarts[t];
@@ -137,7 +157,7 @@ final class SearchTree {
                 break;
             }
             row[j] = v;
-            fillRow(t, j + 1, remaining - v, tight && v == q[t - 1][j]);
+            fillRow(t, j + 1, remaining - v, tight && v == q[t - 1][j], removed + Math.min(v, deficit[t][j]), mustRemove);
         }
     }
 

@@ -81,6 +81,13 @@ final class BruteForceSpace {
             consider(n, chosen, out);
             return;
         }
+        int left = 0;
+        for (int r = 0; r < n.length; r++) {
+            left += n[r] + 1 - rowSum[r];
+        }
+        if (left < 2 * (k - at)) {
+            return; // every column still to come takes at least 2 units
+        }
         for (int i = from; i < columns.size(); i++) {
             int[] c = columns.get(i);
             boolean fits = true;

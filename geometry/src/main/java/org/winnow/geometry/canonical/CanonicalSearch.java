@@ -40,7 +40,7 @@ public final class CanonicalSearch {
     private final int[] earlierTwins = new int[MAX_M];
 
     private States cur = new States();
-    private States[] levels;
+    private States[][] delta;
     private int prefixCols;
     private final int[] prefixTwins = new int[MAX_M];
     private States root;
@@ -149,17 +149,19 @@ public final class CanonicalSearch {
     /**
      * Starts an incremental prefix test for matrices with {@code cols} columns: the generator then
      * calls {@link #pushRow} for rows 0, 1, 2, ... as it places them, and again for a row when it
-     * replaces it or backtracks to it. The search states of each level are kept, so a push only
-     * redoes the levels of the new row's n-group (rows of other groups are never candidates there).
+     * replaces it or backtracks to it.
+     *
+     * <p>Only the work that involves the new row is done. The states of a level are kept split by
+     * the highest row of the current n-group they use ({@code delta[r][i]}: level i, highest row r);
+     * the states that do not use the new row t are exactly those of the previous push and were
+     * already checked against the target rows, so a push of row t only extends states that use t
+     * (by any row) and states that do not (by row t).
      */
     public void startPrefix(int cols) {
         Checks.requireArgument(cols >= 1 && cols <= MAX_K, "columns out of range: %d", cols);
         this.prefixCols = cols;
-        if (levels == null) {
-            levels = new States[MAX_M];
-            for (int i = 0; i < MAX_M; i++) {
-                levels[i] = new States();
-            }
+        if (delta == null) {
+            delta = new States[MAX_M][MAX_M];
             root = new States();
         }
         root.clear();
@@ -167,9 +169,9 @@ public final class CanonicalSearch {
     }
 
     /**
-     * True iff rows 0..t of {@code q} are in canonical form, given that rows 0..t-1 were the
-     * subject of the last successful push of each row (i.e. they are canonical and unchanged since).
-     * Rows must have non-increasing n. Allocation-free once the state storage has grown.
+     * True iff rows 0..t of {@code q} are in canonical form, given that each of rows 0..t-1 is
+     * unchanged since its last push, which succeeded. Rows must have non-increasing n.
+     * Allocation-free once the state storage has grown.
      */
     public boolean pushRow(int[] n, int[][] q, int t) {
         this.k = prefixCols;
@@ -185,32 +187,74 @@ public final class CanonicalSearch {
             }
         }
         prefixTwins[t] = twins;
-        States prev = g == 0 ? root : levels[g - 1];
+        int[] rowT = q[t];
         for (int i = g; i <= t; i++) {
-            States out = levels[i];
+            States out = level(t, i);
             out.clear();
             int[] target = q[i];
-            for (int s = 0; s < prev.size; s++) {
-                int used = prev.used[s];
-                for (int r = g; r <= t; r++) {
-                    if (!isCandidate(used, r, prefixTwins)) {
-                        continue;
-                    }
-                    int cmp = buildCandidate(prev, s, q[r], target, false);
-                    if (cmp > 0) {
-                        return false;
-                    }
-                    if (cmp == 0) {
-                        out.add(used | (1 << r), candStarts, candOrder, k);
+            if (i > g) {
+                // states that already use row t, extended by an earlier row of the group
+                States from = delta[t][i - 1];
+                for (int s = 0; s < from.size; s++) {
+                    int used = from.used[s];
+                    for (int r = g; r < t; r++) {
+                        if (!isCandidate(used, r, prefixTwins)) {
+                            continue;
+                        }
+                        int cmp = buildCandidate(from, s, q[r], target, false);
+                        if (cmp > 0) {
+                            return false;
+                        }
+                        if (cmp == 0) {
+                            out.add(used | (1 << r), candStarts, candOrder, k);
+                        }
                     }
                 }
+                for (int r = i - 1; r < t; r++) {
+                    if (!extendByRow(delta[r][i - 1], t, rowT, target, out)) {
+                        return false;
+                    }
+                }
+            } else if (g == 0) {
+                if (!extendByRow(root, t, rowT, target, out)) {
+                    return false;
+                }
+            } else if (!extendByRow(delta[g - 1][g - 1], t, rowT, target, out)) {
+                // the states of level g-1 use the whole previous group, so their highest row is g-1
+                return false;
             }
             if (out.size > largestStateSet) {
                 largestStateSet = out.size;
             }
-            prev = out;
         }
         return true;
+    }
+
+    /** Extends every state of {@code from} by row t; false as soon as one beats the target. */
+    private boolean extendByRow(States from, int t, int[] rowT, int[] target, States out) {
+        for (int s = 0; s < from.size; s++) {
+            int used = from.used[s];
+            if (!isCandidate(used, t, prefixTwins)) {
+                continue;
+            }
+            int cmp = buildCandidate(from, s, rowT, target, false);
+            if (cmp > 0) {
+                return false;
+            }
+            if (cmp == 0) {
+                out.add(used | (1 << t), candStarts, candOrder, k);
+            }
+        }
+        return true;
+    }
+
+    private States level(int r, int i) {
+        States st = delta[r][i];
+        if (st == null) {
+            st = new States();
+            delta[r][i] = st;
+        }
+        return st;
     }
 
     /** The largest number of search states held at one level since this instance was created. */
