@@ -12,6 +12,7 @@ import picocli.CommandLine.Command;
         subcommands = {
             CommandLine.HelpCommand.class,
             DemoCommand.class,
+            EnumerateCommand.class,
             ScanCommand.class,
             InvariantsCommand.class,
             TrainCommand.class,

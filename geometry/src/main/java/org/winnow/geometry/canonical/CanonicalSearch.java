@@ -13,6 +13,9 @@ import org.winnow.geometry.Configuration;
  * permutation, take the row-major word of the permuted matrix; the canonical form is the permuted
  * matrix with the lexicographically largest word.
  *
+ * <p>The prefix session ({@link #startPrefix}, {@link #pushRow}) keeps its own state, so the
+ * one-shot methods may be called in between.
+ *
  * <p>Algorithm: rows are fixed level by level. A search state is the set of rows used so far and
  * an ordered partition of the columns into cells (columns that are equal in all rows fixed so far
  * and may still be permuted among themselves). For a state and a candidate row the best string
@@ -31,14 +34,16 @@ public final class CanonicalSearch {
     private static final int MAX_M = Configuration.MAX_ROWS;
     private static final int MAX_K = Configuration.MAX_COLS;
 
-    private int[] n;
-    private int[][] q;
     private int k;
     private final int[] ns = new int[MAX_M];
     /** Bit mask of the earlier rows identical to row r (same n, same degrees). */
     private final int[] earlierTwins = new int[MAX_M];
 
     private States cur = new States();
+    private States[][] delta;
+    private int prefixCols;
+    private final int[] prefixTwins = new int[MAX_M];
+    private States root;
     private States next = new States();
 
     private final int[] candOrder = new int[MAX_K];
@@ -70,10 +75,10 @@ public final class CanonicalSearch {
                 int used = cur.used[s];
                 for (int r = t; r < rows && n[r] == ns[t]; r++) {
                     // rows above the group of level t are all used, rows before t in the group may be unused
-                    if (!isCandidate(used, r)) {
+                    if (!isCandidate(used, r, earlierTwins)) {
                         continue;
                     }
-                    int cmp = buildCandidate(s, q[r], target, false);
+                    int cmp = buildCandidate(cur, s, q[r], target, false);
                     if (cmp > 0) {
                         return false;
                     }
@@ -82,10 +87,10 @@ public final class CanonicalSearch {
                     }
                 }
                 for (int r = t - 1; r >= 0 && n[r] == ns[t]; r--) {
-                    if (!isCandidate(used, r)) {
+                    if (!isCandidate(used, r, earlierTwins)) {
                         continue;
                     }
-                    int cmp = buildCandidate(s, q[r], target, false);
+                    int cmp = buildCandidate(cur, s, q[r], target, false);
                     if (cmp > 0) {
                         return false;
                     }
@@ -120,10 +125,10 @@ public final class CanonicalSearch {
             for (int s = 0; s < cur.size; s++) {
                 int used = cur.used[s];
                 for (int r = 0; r < rows; r++) {
-                    if (n[r] != ns[t] || !isCandidate(used, r)) {
+                    if (n[r] != ns[t] || !isCandidate(used, r, earlierTwins)) {
                         continue;
                     }
-                    int cmp = buildCandidate(s, q[r], best, !haveBest);
+                    int cmp = buildCandidate(cur, s, q[r], best, !haveBest);
                     if (cmp < 0) {
                         continue;
                     }
@@ -141,6 +146,117 @@ public final class CanonicalSearch {
         }
     }
 
+    /**
+     * Starts an incremental prefix test for matrices with {@code cols} columns: the generator then
+     * calls {@link #pushRow} for rows 0, 1, 2, ... as it places them, and again for a row when it
+     * replaces it or backtracks to it.
+     *
+     * <p>Only the work that involves the new row is done. The states of a level are kept split by
+     * the highest row of the current n-group they use ({@code delta[r][i]}: level i, highest row r);
+     * the states that do not use the new row t are exactly those of the previous push and were
+     * already checked against the target rows, so a push of row t only extends states that use t
+     * (by any row) and states that do not (by row t).
+     */
+    public void startPrefix(int cols) {
+        Checks.requireArgument(cols >= 1 && cols <= MAX_K, "columns out of range: %d", cols);
+        this.prefixCols = cols;
+        if (delta == null) {
+            delta = new States[MAX_M][MAX_M];
+            root = new States();
+        }
+        root.clear();
+        root.addIdentity(cols);
+    }
+
+    /**
+     * True iff rows 0..t of {@code q} are in canonical form, given that each of rows 0..t-1 is
+     * unchanged since its last push, which succeeded. Rows must have non-increasing n.
+     * Allocation-free once the state storage has grown.
+     */
+    public boolean pushRow(int[] n, int[][] q, int t) {
+        this.k = prefixCols;
+        if (t > 0 && n[t] > n[t - 1]) {
+            return false;
+        }
+        int twins = 0;
+        int g = t;
+        while (g > 0 && n[g - 1] == n[t]) {
+            g--;
+            if (Arrays.equals(q[g], 0, k, q[t], 0, k)) {
+                twins |= 1 << g;
+            }
+        }
+        prefixTwins[t] = twins;
+        int[] rowT = q[t];
+        for (int i = g; i <= t; i++) {
+            States out = level(t, i);
+            out.clear();
+            int[] target = q[i];
+            if (i > g) {
+                // states that already use row t, extended by an earlier row of the group
+                States from = delta[t][i - 1];
+                for (int s = 0; s < from.size; s++) {
+                    int used = from.used[s];
+                    for (int r = g; r < t; r++) {
+                        if (!isCandidate(used, r, prefixTwins)) {
+                            continue;
+                        }
+                        int cmp = buildCandidate(from, s, q[r], target, false);
+                        if (cmp > 0) {
+                            return false;
+                        }
+                        if (cmp == 0) {
+                            out.add(used | (1 << r), candStarts, candOrder, k);
+                        }
+                    }
+                }
+                for (int r = i - 1; r < t; r++) {
+                    if (!extendByRow(delta[r][i - 1], t, rowT, target, out)) {
+                        return false;
+                    }
+                }
+            } else if (g == 0) {
+                if (!extendByRow(root, t, rowT, target, out)) {
+                    return false;
+                }
+            } else if (!extendByRow(delta[g - 1][g - 1], t, rowT, target, out)) {
+                // the states of level g-1 use the whole previous group, so their highest row is g-1
+                return false;
+            }
+            if (out.size > largestStateSet) {
+                largestStateSet = out.size;
+            }
+        }
+        return true;
+    }
+
+    /** Extends every state of {@code from} by row t; false as soon as one beats the target. */
+    private boolean extendByRow(States from, int t, int[] rowT, int[] target, States out) {
+        for (int s = 0; s < from.size; s++) {
+            int used = from.used[s];
+            if (!isCandidate(used, t, prefixTwins)) {
+                continue;
+            }
+            int cmp = buildCandidate(from, s, rowT, target, false);
+            if (cmp > 0) {
+                return false;
+            }
+            if (cmp == 0) {
+                out.add(used | (1 << t), candStarts, candOrder, k);
+            }
+        }
+        return true;
+    }
+
+    private States level(int r, int i) {
+        States st = delta[r][i];
+        if (st == null) {
+            st = new States();
+            delta[r][i] = st;
+        }
+        return st;
+    }
+
     /** The largest number of search states held at one level since this instance was created. */
     public int largestStateSet() {
         return largestStateSet;
@@ -149,8 +265,6 @@ public final class CanonicalSearch {
     private void bind(int[] n, int[][] q, int rows, int cols) {
         Checks.requireArgument(rows >= 1 && rows <= MAX_M, "rows out of range: %d", rows);
         Checks.requireArgument(cols >= 1 && cols <= MAX_K, "columns out of range: %d", cols);
-        this.n = n;
-        this.q = q;
         this.k = cols;
         for (int r = 0; r < rows; r++) {
             int mask = 0;
@@ -164,8 +278,8 @@ public final class CanonicalSearch {
     }
 
     /** Row r is unused and is the first unused row of its kind. */
-    private boolean isCandidate(int used, int r) {
-        return (used & (1 << r)) == 0 && (used & earlierTwins[r]) == earlierTwins[r];
+    private static boolean isCandidate(int used, int r, int[] twins) {
+        return (used & (1 << r)) == 0 && (used & twins[r]) == twins[r];
     }
 
     /**
@@ -174,10 +288,10 @@ public final class CanonicalSearch {
      * then), zero if equal, positive if larger. With {@code beatsAll} the comparison is skipped
      * and the result is positive.
      */
-    private int buildCandidate(int s, int[] row, int[] target, boolean beatsAll) {
-        byte[] ord = cur.order;
+    private int buildCandidate(States from, int s, int[] row, int[] target, boolean beatsAll) {
+        byte[] ord = from.order;
         int base = s * MAX_K;
-        int starts = cur.starts[s];
+        int starts = from.starts[s];
         int cmp = beatsAll ? 1 : 0;
         int newStarts = starts;
         int a = 0;
