@@ -8,9 +8,9 @@ import org.winnow.geometry.Configuration;
  * from {@link FrozenModel#newPredictor()}. {@link #score} allocates nothing; {@link #predict} adds only
  * the returned record.
  *
- * <p>The vote weighs each of the k nearest reference points by {@code 1 / (distance + 1e-12)}, so an
- * exact duplicate of a reference point decides alone; the confidence is the winning class's share of
- * the total weight. Ties between classes go to the smaller h11.
+ * <p>The vote weighs each of the k nearest reference points as {@link Calibration} describes; the
+ * confidence is the winning class's share of the total weight. Ties between classes go to the
+ * smaller h11.
  */
 public final class Predictor {
     private static final double DISTANCE_FLOOR = 1e-12;
@@ -49,8 +49,12 @@ public final class Predictor {
         Calibration cal = model.calibration();
         int k = Math.min(cal.k(), found);
         double total = 0;
+        double bw = cal.bandwidth();
+        double inv2 = bw > 0 ? 0.5 / (bw * bw) : 0;
+        double d0 = distances[0] * distances[0];
         for (int i = 0; i < k; i++) {
-            double w = 1.0 / (distances[i] + DISTANCE_FLOOR);
+            double w = bw > 0 ? Math.exp(-(distances[i] * distances[i] - d0) * inv2)
+                    : 1.0 / (distances[i] + DISTANCE_FLOOR);
             classWeight[model.classOf(neighbours[i])] += w;
             total += w;
         }

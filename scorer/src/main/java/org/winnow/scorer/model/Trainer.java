@@ -224,7 +224,25 @@ public final class Trainer {
             }
         }
         Arrays.sort(loo);
-        return new Calibration(k, nk, loo, classes, quantiles);
+        double bandwidth = loo.length == 0 ? 0 : loo[(loo.length - 1) / 2];
+        return new Calibration(k, nk, bandwidth, tailScale(loo), loo, classes, quantiles);
+    }
+
+    /** Mean excess over the 90% quantile of the sorted distances (0 when there is no spread). */
+    static double tailScale(double[] sorted) {
+        if (sorted.length < 2) {
+            return 0;
+        }
+        double u = sorted[(int) Math.floor(0.9 * (sorted.length - 1))];
+        double sum = 0;
+        int count = 0;
+        for (double d : sorted) {
+            if (d > u) {
+                sum += d - u;
+                count++;
+            }
+        }
+        return count == 0 ? 0 : sum / count;
     }
 
     /** One fixed slice of a batch, with its own buffers; reads the shared parameters only. */

@@ -31,7 +31,7 @@ public record TrainingOptions(Architecture architecture, int epochs, int pairsPe
 
     /** The defaults for embedding dimension {@code dim}. */
     public static TrainingOptions defaults(int dim, long seed) {
-        return new TrainingOptions(Architecture.defaults(dim), 40, 128, 3e-3, 1.0, seed, 2, 3, 1, "unspecified");
+        return new TrainingOptions(Architecture.defaults(dim), 40, 128, 3e-3, 1.0, seed, 2, 7, 1, "unspecified");
     }
 
     public TrainingOptions withEpochs(int e) {

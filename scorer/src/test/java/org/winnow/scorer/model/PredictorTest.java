@@ -41,13 +41,14 @@ class PredictorTest {
 
     @Test
     void confidenceIsTheDistanceWeightedVoteShare() {
-        // Candidate at 0; neighbours at 1 (class 5), 2 and -4 (class 6): weights 1 vs 1/2 + 1/4.
+        // Candidate at 0; neighbours at 1 (class 5), 2 and -4 (class 6). The leave-one-out distances are
+        // 1, 1, 5, so the bandwidth is 1 and the weights exp(-(d^2 - 1) / 2) are 1, e^-1.5, e^-7.5.
         FrozenModel m = model(new String[] {"4:5", "5:3,3", "5:2,4"}, new long[] {0, 0, 0},
                 new int[][] {{5, 5}, {6, 6}, {6, 6}}, new double[] {1, 2, -4}, 3, 1);
         Predictor pr = m.newPredictor();
         int h11 = pr.score(Configuration.parse("4:5"), 0);
         assertEquals(5, h11);
-        assertEquals(1 / 1.75, pr.confidence(), 1e-9);
+        assertEquals(1 / (1 + Math.exp(-1.5) + Math.exp(-7.5)), pr.confidence(), 1e-12);
         assertEquals(0, pr.nearestIndex());
     }
 

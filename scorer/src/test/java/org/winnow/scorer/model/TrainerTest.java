@@ -61,6 +61,11 @@ class TrainerTest {
         // p = (1 + #{D >= delta}) / (N + 1); novelty = 1 - p.
         assertEquals(1 - 5.0 / 5, c.novelty(0.5), 1e-15);
         assertEquals(1 - 3.0 / 5, c.novelty(1.5), 1e-15);
-        assertEquals(1 - 1.0 / 5, c.novelty(10), 1e-15);
+        assertEquals(1 - 2.0 / 5, c.novelty(4), 1e-15);
+        // Beyond the largest distance (4) an exponential tail with the mean excess over the 90%
+        // quantile (here 4 - 2 = 2) as scale: p = exp(-(10 - 4) / 2) / 5.
+        assertEquals(2.0, c.tailScale(), 0);
+        assertEquals(1 - Math.exp(-3) / 5, c.novelty(10), 1e-15);
+        assertEquals(1.0, c.bandwidth(), 0, "the median leave-one-out distance");
     }
 }
