@@ -20,7 +20,7 @@ import smile.neighbor.KDTree;
 import smile.neighbor.Neighbor;
 
 /**
- * The flat scan against Smile's KD-tree for k = 3 in 8 dimensions, on data shaped like a trained
+ * The flat scan against Smile's KD-tree for k = 7 in 8 dimensions, on data shaped like a trained
  * embedding (tight clusters, one per class) and on uniform data; queries cycle over 4,096 points
  * drawn from the same distribution. The JDK-free baseline is the flat scan itself.
  */
@@ -32,7 +32,7 @@ import smile.neighbor.Neighbor;
 @Fork(1)
 public class NeighbourIndexBench {
     private static final int DIM = 8;
-    private static final int K = 3;
+    private static final int K = 7;
 
     @Param({"80", "800", "8000"})
     int size;
