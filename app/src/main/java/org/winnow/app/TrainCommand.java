@@ -41,6 +41,10 @@ final class TrainCommand implements Callable<Integer> {
     @Option(names = "--dim", defaultValue = "8", paramLabel = "D", description = "Embedding dimension (default ${DEFAULT-VALUE}).")
     int dim;
 
+    @Option(names = "--rounds", defaultValue = "0", paramLabel = "R",
+            description = "Message-passing rounds of the network (default ${DEFAULT-VALUE}; see docs/model.md).")
+    int rounds;
+
     @Option(names = "--epochs", defaultValue = "40", paramLabel = "E", description = "Training epochs (default ${DEFAULT-VALUE}).")
     int epochs;
 
@@ -71,7 +75,9 @@ final class TrainCommand implements Callable<Integer> {
         TrainingOptions options;
         try {
             holdoutClass = ReferenceLoader.holdoutClass(holdout);
-            options = TrainingOptions.defaults(dim, seed).withArchitecture(Architecture.defaults(dim))
+            Architecture shape = Architecture.defaults(dim);
+            options = TrainingOptions.defaults(dim, seed)
+                    .withArchitecture(new Architecture(shape.hidden(), rounds, shape.readout(), dim))
                     .withEpochs(epochs).withThreads(threads)
                     .withLabelSource(reference.getFileName() + " (exact rows)");
             if (!(fraction > 0 && fraction <= 1)) {

@@ -33,9 +33,13 @@ public record Architecture(int hidden, int rounds, int readout, int dim) {
         Checks.requireArgument(dim >= 1 && dim <= 64, "embedding dimension must be in 1..64: %s", dim);
     }
 
-    /** The default shape: measured in docs/model.md. */
+    /**
+     * The default shape. No message-passing rounds: with about 1% of the labels, the pooled node
+     * features alone generalised better than two or three rounds on exactly labelled samples and score
+     * about twice as fast (docs/model.md); rounds remain available for larger label sets.
+     */
     public static Architecture defaults(int dim) {
-        return new Architecture(12, 2, 24, dim);
+        return new Architecture(12, 0, 24, dim);
     }
 
     /** Width of the pooled vector fed to the readout. */
