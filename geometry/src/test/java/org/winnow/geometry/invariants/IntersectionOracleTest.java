@@ -71,6 +71,15 @@ class IntersectionOracleTest {
         assertEquals(Map.of(List.of(0, 0), 6L), IntersectionNumbers.all(Configuration.parse("1:2,0/1:0,3")));
     }
 
+    /** 24 hypersurfaces of degree 10^6 in P^24 meet in 10^144 points: far beyond a long. */
+    @Test
+    void overflowFailsLoudly() {
+        String config = "24:" + String.join(",", java.util.Collections.nCopies(24, "1000000"));
+        Configuration c = Configuration.parse(config);
+        org.junit.jupiter.api.Assertions.assertThrows(ArithmeticException.class, () -> IntersectionNumbers.all(c));
+        org.junit.jupiter.api.Assertions.assertThrows(ArithmeticException.class, () -> new InvariantCalculator().compute(c));
+    }
+
     private static long lookup(Map<List<Integer>, Long> map, int m, int... rows) {
         Integer[] a = new Integer[m];
         java.util.Arrays.fill(a, 0);

@@ -17,7 +17,8 @@ import org.winnow.geometry.Configuration;
  * Java Algebra System), which expands
  * {@code prod_r (1 + t J_r)^{n_r+1} prod_j (sum_{k<=d} (-t D_j)^k) prod_j D_j} as an exact sparse
  * polynomial, with no truncation, and reads chi off as the coefficient of {@code t^d J^n}, and
- * {@code I(a)} as the coefficient of {@code J^{n-a}} in {@code prod_j D_j}. Nothing of our
+ * {@code I(a)} as the coefficient of {@code J^{n-a}} in {@code prod_j D_j}, and for three-folds
+ * {@code c2.J_r} as the coefficient of {@code t^2 J^n} after one more factor {@code J_r}. Nothing of our
  * programme or Chern-class code is used on that side (common practice, no source).
  */
 class InvariantsAgainstComputerAlgebraTest {
@@ -34,8 +35,15 @@ class InvariantsAgainstComputerAlgebraTest {
                 continue; // keeps the untruncated expansion small
             }
             GenPolynomialRing<BigInteger> ring = ring(c);
-            long chi = casChi(ring, c);
-            assertEquals(chi, calc.compute(c).chi(), c::toText);
+            long chi = casChi(ring, c, -1);
+            CheapInvariants inv = calc.compute(c);
+            assertEquals(chi, inv.chi(), c::toText);
+            if (dim == 3 && c.ambientDimension() <= 7) {
+                // c2.J_r: the coefficient of t^2 J^n in the same expansion times J_r.
+                for (int r = 0; r < c.rows(); r++) {
+                    assertEquals(casChi(ring, c, r), inv.c2J()[r], c::toText);
+                }
+            }
             casIntersections(ring, c, IntersectionNumbers.all(c));
             compared++;
             if (chi != 0) {
@@ -89,7 +97,11 @@ class InvariantsAgainstComputerAlgebraTest {
         return p.coefficient(mono.leadingExpVector()).getVal().longValueExact();
     }
 
-    private static long casChi(GenPolynomialRing<BigInteger> ring, Configuration c) {
+    /**
+     * chi when {@code timesRow < 0}; otherwise {@code int_X c_{d-1} J_timesRow} (for d = 3 that is
+     * c2.J of that row).
+     */
+    private static long casChi(GenPolynomialRing<BigInteger> ring, Configuration c, int timesRow) {
         int d = c.dimension();
         StringBuilder poly = new StringBuilder();
         for (int r = 0; r < c.rows(); r++) {
@@ -104,7 +116,10 @@ class InvariantsAgainstComputerAlgebraTest {
             poly.append(")*");
         }
         poly.append(classOfX(c));
-        return coefficient(ring.parse(poly.toString()), monomial(ring, d, c.dims()));
+        if (timesRow >= 0) {
+            poly.append('*').append(variable(timesRow));
+        }
+        return coefficient(ring.parse(poly.toString()), monomial(ring, timesRow >= 0 ? d - 1 : d, c.dims()));
     }
 
     private static void casIntersections(GenPolynomialRing<BigInteger> ring, Configuration c,
