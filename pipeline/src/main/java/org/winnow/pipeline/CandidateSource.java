@@ -22,6 +22,15 @@ public interface CandidateSource {
         return OptionalLong.empty();
     }
 
+    /**
+     * True iff the source never pushes two items with the same canonical text (an enumeration of
+     * canonical forms). The {@link Sequencer} then keeps no set of seen keys, whose memory would
+     * otherwise grow with the number of distinct candidates.
+     */
+    default boolean distinct() {
+        return false;
+    }
+
     /** A one-line description for the manifest, such as the bounds or the input file. */
     String description();
 }

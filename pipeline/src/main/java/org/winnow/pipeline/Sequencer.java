@@ -34,7 +34,7 @@ public final class Sequencer implements SourceListener {
     private final BadInputPolicy policy;
     private final Downstream downstream;
     private final SourceMetrics metrics;
-    private final Set<String> seen = new HashSet<>();
+    private final Set<String> seen;
     private final List<BadInput> listed = new ArrayList<>();
     private long items;
     private long duplicates;
@@ -48,12 +48,22 @@ public final class Sequencer implements SourceListener {
      * @param shard      the shard number written into every candidate
      */
     public Sequencer(long resumeFrom, int shard, BadInputPolicy policy, Downstream downstream, SourceMetrics metrics) {
+        this(resumeFrom, shard, policy, downstream, metrics, true);
+    }
+
+    /**
+     * @param dedup false for a source whose items are distinct by construction ({@link CandidateSource#distinct()});
+     *              then no set of seen keys is kept and nothing is counted as a duplicate
+     */
+    public Sequencer(long resumeFrom, int shard, BadInputPolicy policy, Downstream downstream, SourceMetrics metrics,
+            boolean dedup) {
         Checks.requireArgument(resumeFrom >= 0, "resume point must be non-negative: %s", resumeFrom);
         this.resumeFrom = resumeFrom;
         this.shard = shard;
         this.policy = Objects.requireNonNull(policy, "policy");
         this.downstream = Objects.requireNonNull(downstream, "downstream");
         this.metrics = Objects.requireNonNull(metrics, "metrics");
+        this.seen = dedup ? new HashSet<>() : null;
     }
 
     @Override
@@ -62,7 +72,7 @@ public final class Sequencer implements SourceListener {
         long seq;
         synchronized (this) {
             items++;
-            if (!seen.add(key)) {
+            if (seen != null && !seen.add(key)) {
                 duplicates++;
                 metrics.duplicate();
                 return;

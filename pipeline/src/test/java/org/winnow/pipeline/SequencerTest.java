@@ -37,6 +37,16 @@ class SequencerTest {
     }
 
     @Test
+    void aDistinctSourceIsNumberedWithoutASeenSet() throws Exception {
+        List<Candidate> out = new ArrayList<>();
+        Sequencer s = new Sequencer(1, 0, BadInputPolicy.SKIP, out::add, new SourceMetrics(new SimpleMeterRegistry()), false);
+        push(s, "4:5", "2:3/2:3", "3:3,1");
+        assertEquals(List.of(1L, 2L), out.stream().map(Candidate::seq).toList());
+        assertEquals(0, s.report().duplicates());
+        assertEquals(3, s.report().candidates());
+    }
+
+    @Test
     void resumeSkipsCommittedSeqsButKeepsTheNumbering() throws Exception {
         List<Candidate> out = new ArrayList<>();
         Sequencer s = new Sequencer(2, 0, BadInputPolicy.SKIP, out::add, new SourceMetrics(new SimpleMeterRegistry()));

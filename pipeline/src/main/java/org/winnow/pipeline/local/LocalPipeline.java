@@ -99,7 +99,7 @@ public final class LocalPipeline {
         Sequencer seq = new Sequencer(resumeFrom, 0, policy, c -> {
             window.admit(c.seq());
             candidates.send(c);
-        }, new SourceMetrics(registry));
+        }, new SourceMetrics(registry), !source.distinct());
         sequencer.accept(seq);
 
         List<Thread> threads = new ArrayList<>();
