@@ -87,19 +87,9 @@ public final class ClusterThroughput {
             Future<?> producer = threads.submit(() -> ClusterProducer.run(new ClusterProducer.Settings(kafka, run,
                     TopicLayout.singleBroker(Math.max(scorers, 1) * 2), new InputFileSource(input), input.toString(),
                     BadInputPolicy.SKIP, 2000), new SimpleMeterRegistry()));
-            // The run exists once the producer has created it; the scorers join it then.
-            while (true) {
-                try (Admin admin = Admin.create(kafka.common())) {
-                    if (admin.listTopics().names().get().containsAll(run.all())) {
-                        break;
-                    }
-                }
-                Thread.sleep(100);
-            }
             List<ClusterScorer> joined = new ArrayList<>();
             for (int i = 0; i < scorers; i++) {
-                ClusterScorer s = ClusterScorer.join(kafka, run, "s" + i, scoring, rules, new SimpleMeterRegistry(),
-                        ExactlyOnceRelay.Listener.NONE);
+                ClusterScorer s = join(kafka, run, "s" + i, scoring, rules);
                 joined.add(s);
                 threads.submit(s::run);
             }
@@ -120,6 +110,23 @@ public final class ClusterThroughput {
             System.out.printf("bytes/candidate  candidates topic %.1f, scored topic %.1f%n",
                     sizes.get(run.candidates()) / (double) candidates, sizes.get(run.scored()) / (double) candidates);
             joined.forEach(ClusterScorer::close);
+        }
+    }
+
+    /** Joins once the producer has created the run; until then the run is refused. */
+    private static ClusterScorer join(KafkaSettings kafka, RunTopics run, String name, ModelScoring scoring,
+            KeepRules rules) throws InterruptedException {
+        long deadline = System.nanoTime() + Duration.ofSeconds(60).toNanos();
+        while (true) {
+            try {
+                return ClusterScorer.join(kafka, run, name, scoring, rules, new SimpleMeterRegistry(),
+                        ExactlyOnceRelay.Listener.NONE);
+            } catch (org.winnow.pipeline.kafka.ClusterRefusedException e) {
+                if (System.nanoTime() > deadline) {
+                    throw e;
+                }
+                Thread.sleep(200);
+            }
         }
     }
 

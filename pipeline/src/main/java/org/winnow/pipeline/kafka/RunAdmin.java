@@ -75,6 +75,7 @@ public final class RunAdmin implements AutoCloseable {
         p.putIfAbsent("request.timeout.ms", ms);
         p.putIfAbsent("default.api.timeout.ms", ms);
         p.putIfAbsent("socket.connection.setup.timeout.max.ms", ms);
+        p.putIfAbsent("socket.connection.setup.timeout.ms", ms);
         return p;
     }
 
