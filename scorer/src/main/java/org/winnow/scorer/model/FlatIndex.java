@@ -7,18 +7,18 @@ import org.winnow.geometry.Checks;
  * docs/benchmarks.md, "Similarity model"): the tree cannot prune much in 8 dimensions and pays for
  * pointer chasing, while the scan is a tight loop over a few thousand cache-resident points.
  *
- * <p>The points are stored coordinate by coordinate ({@code columns[i][p]}) and scanned in blocks of
- * {@value #BLOCK}: for each coordinate in turn, the squared differences of the whole block are added
- * to its partial sums, a loop the JIT turns into SIMD code; then the block's sums are merged into
- * the k best. Each distance is still summed coordinate 0 first, so it is bit for bit the sum a point
- * by point scan gives. This replaced a point-by-point scan that abandoned partial sums above the
- * k-th best, which was several times slower on eight dimensions (one mispredicted branch per point,
- * no SIMD; docs/benchmarks.md, "Side by side").
+ * <p>The points are kept in blocks of {@value #BLOCK}, each block coordinate by coordinate
+ * ({@code blocks[b][i][p]}). A query first adds, coordinate after coordinate, the squared differences
+ * of a whole block to the block's partial sums (a loop over equal indices of two arrays, which the
+ * JIT turns into SIMD code), then merges the block's sums into the k best. Each distance is still
+ * summed coordinate 0 first, so it is bit for bit the sum a point-by-point scan gives. This replaced
+ * a point-by-point scan that abandoned partial sums above the k-th best, several times slower on eight
+ * dimensions (a mispredicted branch per point, no SIMD; docs/benchmarks.md, "Side by side").
  */
 public final class FlatIndex implements NeighbourIndex {
     private static final int BLOCK = 256;
 
-    private final double[][] columns;
+    private final double[][][] blocks;
     private final int n;
     private final int dim;
     // One scratch block per thread: the index is shared by all of a model's predictors.
@@ -31,10 +31,15 @@ public final class FlatIndex implements NeighbourIndex {
                 points.length, dim);
         this.dim = dim;
         this.n = points.length / dim;
-        this.columns = new double[dim][n];
-        for (int p = 0; p < n; p++) {
+        this.blocks = new double[(n + BLOCK - 1) / BLOCK][dim][];
+        for (int b = 0; b < blocks.length; b++) {
+            int len = Math.min(BLOCK, n - b * BLOCK);
             for (int i = 0; i < dim; i++) {
-                columns[i][p] = points[p * dim + i];
+                double[] c = new double[len];
+                for (int p = 0; p < len; p++) {
+                    c[p] = points[(b * BLOCK + p) * dim + i];
+                }
+                blocks[b][i] = c;
             }
         }
     }
@@ -57,27 +62,30 @@ public final class FlatIndex implements NeighbourIndex {
         }
         double[] s = partial.get();
         int found = 0;
+        double bound = Double.POSITIVE_INFINITY; // the k-th best once k are found
         // distance[] holds squared distances until the end, kept sorted ascending.
-        for (int base = 0; base < n; base += BLOCK) {
-            int len = Math.min(BLOCK, n - base);
+        for (int b = 0; b < blocks.length; b++) {
+            double[][] block = blocks[b];
+            int len = block[0].length;
+            double[] c0 = block[0];
+            double q0 = query[0];
             for (int p = 0; p < len; p++) {
-                s[p] = 0;
+                double diff = c0[p] - q0;
+                s[p] = diff * diff;
             }
-            for (int i = 0; i < dim; i++) {
-                double[] c = columns[i];
+            for (int i = 1; i < dim; i++) {
+                double[] c = block[i];
                 double q = query[i];
                 for (int p = 0; p < len; p++) {
-                    double diff = c[base + p] - q;
+                    double diff = c[p] - q;
                     s[p] += diff * diff;
                 }
             }
+            int base = b * BLOCK;
             for (int p = 0; p < len; p++) {
-                if (base + p == exclude) {
-                    continue;
-                }
                 double d = s[p];
                 // Strictly closer than the k-th best, or room left: insert after all equal distances.
-                if (found < k || d < distance[k - 1]) {
+                if ((d < bound || found < k) && base + p != exclude) {
                     int pos = found < k ? found : k - 1;
                     while (pos > 0 && distance[pos - 1] > d) {
                         distance[pos] = distance[pos - 1];
@@ -88,6 +96,9 @@ public final class FlatIndex implements NeighbourIndex {
                     index[pos] = base + p;
                     if (found < k) {
                         found++;
+                    }
+                    if (found == k) {
+                        bound = distance[k - 1];
                     }
                 }
             }
