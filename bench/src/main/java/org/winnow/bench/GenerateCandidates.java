@@ -17,8 +17,12 @@ import picocli.CommandLine.Option;
 /**
  * Writes a bench candidate file: {@code count} seeded random three-fold configuration matrices
  * (drawn like the synthetic development scenario: K in 1..5, sum n = K + 3, every row summing to
- * n_r + 1, every column to at least 2; repeats allowed), each with its exact chi from the geometry
- * module's calculator. Same seed and count, same file, byte for byte.
+ * n_r + 1, every column to at least 2; repeats allowed), each in canonical form and with its exact
+ * chi from the geometry module's calculator. Same seed and count, same file, byte for byte.
+ *
+ * <p>Repeats are many: the three-fold space is small (10^5 draws give under 6,000 canonical forms),
+ * so a deduplicating scan scores only the distinct lines; the canonical text makes them easy to pick
+ * out ({@code awk -F'\t' '!seen[$1]++'}).
  *
  * <p>{@code java -cp bench/target/benchmarks.jar org.winnow.bench.GenerateCandidates --count 1000000 --seed 7 --out c.tsv}
  */
@@ -49,7 +53,7 @@ public final class GenerateCandidates implements Callable<Integer> {
         InvariantCalculator calculator = new InvariantCalculator();
         try (BufferedWriter w = Files.newBufferedWriter(out, StandardCharsets.UTF_8)) {
             for (long i = 0; i < count; i++) {
-                Configuration c = SyntheticScenario.draw(rng);
+                Configuration c = SyntheticScenario.draw(rng).canonical();
                 w.write(new CandidateLine(c, calculator.chi(c)).format());
                 w.write('\n');
             }
