@@ -37,6 +37,25 @@ class FlatIndexTest {
     }
 
     @Test
+    void agreesWithSortingOracleAcrossSeveralScanBlocks() {
+        SplittableRandom rng = new SplittableRandom(7);
+        int dim = 8;
+        int n = 1000; // four blocks of the scan, the last one partial
+        double[] pts = new double[n * dim];
+        for (int i = 0; i < pts.length; i++) {
+            pts[i] = rng.nextInt(4) == 0 ? rng.nextInt(2) : rng.nextDouble();
+        }
+        FlatIndex index = new FlatIndex(pts, dim);
+        for (int qi = 0; qi < 50; qi++) {
+            double[] q = new double[dim];
+            for (int i = 0; i < dim; i++) {
+                q[i] = qi % 3 == 0 ? pts[(qi * 17 % n) * dim + i] : rng.nextDouble();
+            }
+            check(index, pts, dim, q, 1 + rng.nextInt(12), qi % 2 == 0 ? 255 + rng.nextInt(3) : -1);
+        }
+    }
+
+    @Test
     void emptyIndexFindsNothing() {
         FlatIndex index = new FlatIndex(new double[0], 3);
         assertEquals(0, index.size());

@@ -1,0 +1,174 @@
+#!/usr/bin/env bash
+# Side by side: winnow's scorer against the numpy reference scorer on one candidate file, in one go,
+# then the end-to-end scan, the cluster mode if present, and the forward pass against the machine's
+# FMA rate. Prints candidates/s for each run, the ratios, and a summary of `name: value` lines.
+#
+#   bench/compare.sh            # 10^6 candidates for winnow, the first 10^5 of them for numpy
+#   bench/compare.sh --quick    # 10^5 for winnow, the first 10^4 for numpy (under two minutes idle)
+#
+# Work files go to bench/target/compare (override with COMPARE_DIR). See bench/README.md.
+set -euo pipefail
+here="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
+count=1000000
+numpy_count=100000
+epochs=4
+if [ "${1:-}" = "--quick" ]; then
+  count=100000
+  numpy_count=10000
+  epochs=2
+fi
+work="${COMPARE_DIR:-$here/bench/target/compare}"
+mkdir -p "$work"
+log="$work/log.txt"
+: > "$log"
+say() { echo "$@" >&2; }
+
+# A python3 with numpy: the one on PATH may be a pyenv build with its own numpy, Debian's may lack it.
+python=""
+for p in python3 /usr/bin/python3; do
+  if command -v "$p" >/dev/null 2>&1 && "$p" -c "import numpy" >/dev/null 2>&1; then python="$p"; break; fi
+done
+if [ -z "$python" ]; then
+  say "compare: no python3 with numpy; installing Debian's python3-numpy"
+  sudo_=""; [ "$(id -u)" -ne 0 ] && sudo_="sudo"
+  $sudo_ apt-get update -q >>"$log" 2>&1 && $sudo_ apt-get install -y -q python3-numpy >>"$log" 2>&1
+  python=/usr/bin/python3
+  "$python" -c "import numpy" || { say "compare: python3-numpy did not install (see $log)"; exit 2; }
+fi
+numpy_version="$("$python" -c 'import numpy; print(numpy.__version__)')"
+
+say "compare: building"
+(cd "$here" && mvn -B -q -ntp -Dstyle.color=never -DskipTests -pl bench -am package) >>"$log" 2>&1
+winnow="$here/app/target/winnow.jar"
+bench="$here/bench/target/benchmarks.jar"
+java_opts=(-Xmx2g)
+
+model="$work/model.wnm"
+if [ ! -f "$model" ]; then
+  say "compare: training the bench model (synthetic scenario, 7890 reference examples, $epochs epochs)"
+  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.BenchModel --epochs "$epochs" --out "$model" >>"$log" 2>&1
+fi
+java "${java_opts[@]}" -jar "$winnow" export-weights --model "$model" --out "$work/weights.json"
+
+cands="$work/candidates-$count.tsv"
+if [ ! -f "$cands" ]; then
+  say "compare: generating $count candidates (seed 7)"
+  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.GenerateCandidates --count "$count" --seed 7 --out "$cands"
+fi
+prefix="$work/candidates-$count-first-$numpy_count.tsv"
+head -n "$numpy_count" "$cands" > "$prefix"
+
+# field NAME FILE: the value of NAME=value on the first line of FILE that has it
+field() { grep -o "$2=[^ ]*" "$1" | head -1 | cut -d= -f2; }
+
+run_winnow() { # name threads file
+  say "compare: winnow scorer, $2 thread(s), $(wc -l < "$3") candidates"
+  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.ScorerThroughput --model "$model" --candidates "$3" \
+    --threads "$2" > "$work/$1.out"
+  cat "$work/$1.out" >&2
+}
+run_numpy() { # name blas-threads file
+  say "compare: numpy scorer ($numpy_version), BLAS threads $2, $(wc -l < "$3") candidates"
+  OPENBLAS_NUM_THREADS="$2" OMP_NUM_THREADS="$2" MKL_NUM_THREADS="$2" \
+    "$python" "$here/bench/numpy_scorer.py" --weights "$work/weights.json" --candidates "$3" --search gemm \
+    > "$work/$1.out"
+  cat "$work/$1.out" >&2
+}
+
+run_winnow winnow1 1 "$cands"
+run_winnow winnow2 2 "$cands"
+run_winnow winnow1-prefix 1 "$prefix"
+run_numpy numpy1 1 "$prefix"
+run_numpy numpy2 2 "$prefix"
+
+# End to end: `winnow scan` (2 threads) against the scorer alone (2 threads) on the file's distinct
+# lines (the scan deduplicates, so only those are work for it). The scan is timed as a difference
+# between all distinct lines and the first 1000 of them, so that JVM start and model load cancel out.
+e2e="not available"
+distinct="$work/candidates-$count-distinct.tsv"
+awk -F'\t' '!seen[$1]++' "$cands" > "$distinct"
+dcount=$(wc -l < "$distinct")
+scan_once() { # file -> seconds on stdout
+  rm -rf "$work/scan-out"
+  local start end
+  start=$(date +%s.%N)
+  java "${java_opts[@]}" -jar "$winnow" scan --model "$model" --input "$1" --out "$work/scan-out" --threads 2 \
+    >"$work/scan.out" 2>&1 || return 1
+  end=$(date +%s.%N)
+  echo "$end - $start" | bc -l
+}
+if java -jar "$winnow" scan --help >/dev/null 2>&1; then
+  run_winnow winnow2-distinct 2 "$distinct"
+  say "compare: winnow scan end to end, 2 threads, $dcount distinct candidates"
+  head -n 1000 "$distinct" > "$work/first-1000.tsv"
+  if t_small=$(scan_once "$work/first-1000.tsv") && t_full=$(scan_once "$distinct"); then
+    grep -v SLF4J "$work/scan.out" >&2
+    e2e=$("$python" -c "print(f'{($dcount - 1000) / ($t_full - $t_small):.1f}')")
+  else
+    e2e="failed (see $work/scan.out)"
+  fi
+fi
+# Cluster mode: main has `winnow produce | score | sink` on Kafka, but this script does not drive
+# them yet, and says so rather than guess a figure.
+kafka="not available"
+if java -jar "$winnow" score --help >/dev/null 2>&1; then
+  kafka="not measured (cluster commands exist; compare.sh does not drive them yet)"
+fi
+
+say "compare: forward pass cost"
+java "${java_opts[@]}" -cp "$bench" org.winnow.bench.ForwardPassCost --model "$model" --candidates "$cands" \
+  --limit "$numpy_count" > "$work/forward.out"
+cat "$work/forward.out" >&2
+say "compare: FMA rate (JMH)"
+java "${java_opts[@]}" -Djmh.ignoreLock=true -cp "$bench" org.winnow.bench.FlopRate --iterations 3 \
+  > "$work/flops.out" 2>>"$log"
+tail -1 "$work/flops.out" >&2
+
+agree=no
+[ "$(grep histogram "$work/winnow1-prefix.out")" = "$(grep histogram "$work/numpy1.out")" ] && agree=yes
+
+W1=$(field "$work/winnow1.out" rate) W2=$(field "$work/winnow2.out" rate) \
+W1C=$(field "$work/winnow1.out" cpu_rate) W2C=$(field "$work/winnow2.out" cpu_rate) \
+N1=$(field "$work/numpy1.out" rate) N2=$(field "$work/numpy2.out" rate) \
+N1C=$(field "$work/numpy1.out" cpu_rate) N2C=$(field "$work/numpy2.out" cpu_rate) \
+FM=$(field "$work/forward.out" forward_macs) SM=$(field "$work/forward.out" search_macs) \
+FR=$(field "$work/forward.out" forward_rate) RR=$(field "$work/forward.out" full_rate) \
+VF=$(field "$work/flops.out" vector_cpu_flops) SF=$(field "$work/flops.out" scalar_cpu_flops) \
+VFW=$(field "$work/flops.out" vector_flops) \
+W2D=$(field "$work/winnow2-distinct.out" rate 2>/dev/null || echo nan) DCOUNT="$dcount" \
+E2E="$e2e" KAFKA="$kafka" AGREE="$agree" COUNT="$count" NCOUNT="$numpy_count" LOAD="$(cut -d' ' -f1-3 /proc/loadavg)" \
+"$python" - <<'EOF'
+import os
+e = os.environ
+f = lambda k: float(e[k])
+w1, w2, n1, n2 = f("W1"), f("W2"), f("N1"), f("N2")
+fwd_flops = f("FM") * 2 * f("FR")
+print()
+print(f"machine: {os.cpu_count()} cores, load average {e['LOAD']} (wall-clock rates suffer from the load; cpu rates much less)")
+print(f"{'run':34s} {'cand/s (wall)':>14s} {'cand/s (cpu)':>14s}")
+print(f"{'winnow scorer, 1 thread':34s} {w1:14.0f} {f('W1C'):14.0f}   ({e['COUNT']} candidates)")
+print(f"{'winnow scorer, 2 threads':34s} {w2:14.0f} {f('W2C'):14.0f}")
+print(f"{'numpy scorer, 1 BLAS thread':34s} {n1:14.0f} {f('N1C'):14.0f}   (first {e['NCOUNT']})")
+print(f"{'numpy scorer, 2 BLAS threads':34s} {n2:14.0f} {f('N2C'):14.0f}")
+print(f"{'winnow scan, end to end, 2 threads':34s} {e['E2E']:>14s}   ({e['DCOUNT']} distinct candidates)")
+print(f"{'winnow scorer, 2 threads, distinct':34s} {f('W2D'):14.0f}")
+print(f"forward pass: {f('FM'):.0f} multiply-adds per candidate, {f('FR'):.0f} candidates per cpu-second alone,"
+      f" {fwd_flops / 1e9:.2f} GFLOP/s; neighbour scan {f('SM'):.0f} multiply-adds; with the vote {f('RR'):.0f}/cpu-s")
+print(f"FMA limit (cpu time, one core): vector {f('VF') / 1e9:.1f} GFLOP/s, scalar {f('SF') / 1e9:.1f} GFLOP/s;"
+      f" JMH wall clock vector {f('VFW') / 1e9:.1f}")
+print()
+print("summary:")
+print(f"winnow/numpy (1 thread): {w1 / n1:.2f}")
+print(f"winnow/numpy (2 threads): {w2 / n2:.2f}")
+print(f"winnow/numpy (1 thread, cpu time): {f('W1C') / f('N1C'):.2f}")
+print(f"winnow/numpy (2 threads, cpu time): {f('W2C') / f('N2C'):.2f}")
+print(f"winnow 2 threads/1 thread: {w2 / w1:.2f}")
+try:
+    print(f"end-to-end/scorer: {float(e['E2E']) / f('W2D'):.2f}")
+except ValueError:
+    print(f"end-to-end/scorer: {e['E2E']}")
+print(f"kafka/in-process: {e['KAFKA']}")
+print(f"forward pass/FLOP limit: {fwd_flops / f('VF'):.3f}")
+print(f"forward pass/scalar FLOP limit: {fwd_flops / f('SF'):.3f}")
+print(f"predictions agree (histogram of the numpy prefix): {e['AGREE']}")
+EOF

@@ -1,0 +1,157 @@
+package org.winnow.bench;
+
+import java.io.BufferedReader;
+import java.io.BufferedWriter;
+import com.sun.management.OperatingSystemMXBean;
+import java.io.IOException;
+import java.lang.management.ManagementFactory;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.TreeMap;
+import java.util.concurrent.ArrayBlockingQueue;
+import java.util.concurrent.BlockingQueue;
+import java.util.concurrent.Callable;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import org.winnow.scorer.model.FrozenModel;
+import org.winnow.scorer.model.Predictor;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+
+/**
+ * The scorer alone: reads a candidate file, and on {@code threads} workers (one {@link Predictor}
+ * each) parses every line and predicts its h11 (features, forward pass, neighbour vote). Timed from
+ * opening the file to the last prediction; JVM start and model load are outside, as they are for
+ * the numpy scorer. The main thread only reads lines and hands out blocks of them.
+ *
+ * <p>Prints one line {@code candidates=N seconds=S rate=R cpu_seconds=C cpu_rate=Q} (wall clock, and
+ * the CPU time of the whole process: workers, reader, JIT and GC, which is what a shared machine
+ * does not distort much) and the histogram of predicted h11, so a
+ * driver can check that both scorers agree on the whole file.
+ */
+@Command(name = "scorer-throughput", mixinStandardHelpOptions = true)
+public final class ScorerThroughput implements Callable<Integer> {
+    private static final int BLOCK = 4096;
+    private static final String[] END = new String[0];
+
+    @Option(names = "--model", required = true, description = "The frozen model (.wnm).")
+    Path model;
+
+    @Option(names = "--candidates", required = true, description = "The candidate file.")
+    Path candidates;
+
+    @Option(names = "--threads", defaultValue = "1", description = "Worker threads (default ${DEFAULT-VALUE}).")
+    int threads;
+
+    @Option(names = "--predictions", description = "Also write the predicted h11 of every line, in order (1 thread only).")
+    Path predictions;
+
+    public static void main(String[] args) {
+        System.exit(new CommandLine(new ScorerThroughput()).execute(args));
+    }
+
+    @Override
+    public Integer call() throws Exception {
+        FrozenModel m = FrozenModel.load(model);
+        if (predictions != null) {
+            writePredictions(m);
+            return 0;
+        }
+        OperatingSystemMXBean os = (OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean();
+        long cpuStart = os.getProcessCpuTime();
+        long start = System.nanoTime();
+        Map<Integer, Long> histogram = run(m);
+        double seconds = (System.nanoTime() - start) / 1e9;
+        double cpu = (os.getProcessCpuTime() - cpuStart) / 1e9;
+        long n = histogram.values().stream().mapToLong(Long::longValue).sum();
+        System.out.printf("candidates=%d seconds=%.3f rate=%.1f cpu_seconds=%.3f cpu_rate=%.1f%n", n, seconds,
+                n / seconds, cpu, n / cpu);
+        System.out.println("histogram=" + histogram);
+        return 0;
+    }
+
+    private Map<Integer, Long> run(FrozenModel m) throws IOException, InterruptedException, ExecutionException {
+        BlockingQueue<String[]> queue = new ArrayBlockingQueue<>(2 * threads + 2);
+        ExecutorService pool = Executors.newFixedThreadPool(threads);
+        List<Future<Map<Integer, Long>>> results = new ArrayList<>();
+        try {
+            for (int t = 0; t < threads; t++) {
+                results.add(pool.submit(() -> work(m.newPredictor(), queue)));
+            }
+            try (BufferedReader r = Files.newBufferedReader(candidates, StandardCharsets.UTF_8)) {
+                String[] block = new String[BLOCK];
+                int fill = 0;
+                String line;
+                while ((line = r.readLine()) != null) {
+                    block[fill++] = line;
+                    if (fill == BLOCK) {
+                        queue.put(block);
+                        block = new String[BLOCK];
+                        fill = 0;
+                    }
+                }
+                if (fill > 0) {
+                    queue.put(java.util.Arrays.copyOf(block, fill));
+                }
+            } finally {
+                for (int t = 0; t < threads; t++) {
+                    queue.put(END);
+                }
+            }
+            Map<Integer, Long> total = new TreeMap<>();
+            for (Future<Map<Integer, Long>> f : results) {
+                f.get().forEach((k, v) -> total.merge(k, v, Long::sum));
+            }
+            return total;
+        } finally {
+            pool.shutdownNow();
+        }
+    }
+
+    private static Map<Integer, Long> work(Predictor p, BlockingQueue<String[]> queue) throws InterruptedException {
+        Map<Integer, Long> histogram = new TreeMap<>();
+        long[] small = new long[256];
+        while (true) {
+            String[] block = queue.take();
+            if (block == END) {
+                break;
+            }
+            for (String line : block) {
+                CandidateLine c = CandidateLine.parse(line, 0);
+                int h11 = p.score(c.config(), c.chi());
+                if (h11 >= 0 && h11 < small.length) {
+                    small[h11]++;
+                } else {
+                    histogram.merge(h11, 1L, Long::sum);
+                }
+            }
+        }
+        for (int h = 0; h < small.length; h++) {
+            if (small[h] > 0) {
+                histogram.merge(h, small[h], Long::sum);
+            }
+        }
+        return histogram;
+    }
+
+    private void writePredictions(FrozenModel m) throws IOException {
+        Predictor p = m.newPredictor();
+        try (BufferedReader r = Files.newBufferedReader(candidates, StandardCharsets.UTF_8);
+                BufferedWriter w = Files.newBufferedWriter(predictions, StandardCharsets.UTF_8)) {
+            String line;
+            int number = 0;
+            while ((line = r.readLine()) != null) {
+                CandidateLine c = CandidateLine.parse(line, ++number);
+                w.write(Integer.toString(p.score(c.config(), c.chi())));
+                w.write('\n');
+            }
+        }
+    }
+}

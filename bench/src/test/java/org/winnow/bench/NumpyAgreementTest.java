@@ -1,0 +1,91 @@
+package org.winnow.bench;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashSet;
+import java.util.List;
+import java.util.concurrent.TimeUnit;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.winnow.app.WinnowCli;
+import org.winnow.scorer.model.Architecture;
+import org.winnow.scorer.model.FrozenModel;
+import org.winnow.scorer.model.Predictor;
+import org.winnow.scorer.model.Trainer;
+import org.winnow.scorer.model.TrainingOptions;
+import org.winnow.scorer.model.TrainingProgress;
+import org.winnow.scorer.model.synthetic.SyntheticScenario;
+
+/**
+ * The numpy reference scorer reads the exported weights and must predict exactly what winnow's
+ * Predictor predicts, candidate by candidate, with either distance formula. Skipped (not failed) where no python3 with numpy exists.
+ */
+class NumpyAgreementTest {
+    @TempDir
+    Path dir;
+
+    @Test
+    void numpyScorerPredictsWhatWinnowPredictsOnAThousandCandidates() throws Exception {
+        String python = PythonWithNumpy.find();
+        assumeTrue(python != null, "no python3 with numpy on this machine");
+
+        TrainingOptions options = TrainingOptions.defaults(8, 5).withArchitecture(Architecture.defaults(8))
+                .withEpochs(2).withThreads(1);
+        FrozenModel model = Trainer.train(SyntheticScenario.generate(600, 5), options, TrainingProgress.silent());
+        Path modelFile = dir.resolve("m.wnm");
+        model.save(modelFile);
+        Path weights = dir.resolve("w.json");
+        assertEquals(0, WinnowCli.commandLine().execute("export-weights", "--model", modelFile.toString(), "--out",
+                weights.toString()));
+        Path candidates = dir.resolve("c.tsv");
+        GenerateCandidates.write(1000, 99, candidates);
+
+        List<Integer> expected = new ArrayList<>();
+        Predictor p = model.newPredictor();
+        int number = 0;
+        for (String line : Files.readAllLines(candidates, StandardCharsets.UTF_8)) {
+            CandidateLine c = CandidateLine.parse(line, ++number);
+            expected.add(p.score(c.config(), c.chi()));
+        }
+
+        // A vote that never varies would agree trivially: the candidates must reach several classes.
+        assertTrue(new HashSet<>(expected).size() >= 3, "predictions: " + new HashSet<>(expected));
+        for (String search : new String[] {"direct", "gemm"}) {
+            List<Integer> actual = numpy(python, weights, candidates, search);
+            assertEquals(1000, actual.size());
+            for (int i = 0; i < expected.size(); i++) {
+                assertEquals(expected.get(i), actual.get(i), search + " search, candidate " + (i + 1));
+            }
+        }
+    }
+
+    private List<Integer> numpy(String python, Path weights, Path candidates, String search) throws Exception {
+        Path out = dir.resolve("p-" + search + ".txt");
+        Path log = dir.resolve("log-" + search + ".txt");
+        Process proc = new ProcessBuilder(python, Path.of("numpy_scorer.py").toAbsolutePath().toString(),
+                "--weights", weights.toString(), "--candidates", candidates.toString(), "--search", search,
+                "--predictions", out.toString()).redirectErrorStream(true).redirectOutput(log.toFile()).start();
+        assertTrue(proc.waitFor(120, TimeUnit.SECONDS), "numpy scorer did not finish");
+        assertEquals(0, proc.exitValue(), () -> read(log));
+        List<Integer> actual = new ArrayList<>();
+        for (String line : Files.readAllLines(out, StandardCharsets.UTF_8)) {
+            actual.add(Integer.parseInt(line.strip()));
+        }
+        return actual;
+    }
+
+    private static String read(Path p) {
+        try {
+            return Files.readString(p);
+        } catch (IOException e) {
+            return e.toString();
+        }
+    }
+}
