@@ -11,8 +11,9 @@ import org.winnow.geometry.hodge.HodgeResult;
 /**
  * Text forms of Hodge results: JSON lines for {@code winnow hodge}, and the reference TSV
  * ({@code config h11 h21 [h31 h22] status source}) for {@code winnow label}. In the TSV an
- * undetermined value is written {@code lo..hi} and a number that does not apply (h21 of a K3
- * surface) as {@code -}.
+ * undetermined value is written {@code lo..hi}. For a K3 surface h21 is written 0, which it is
+ * ({@code h^{2,1} = h^{1,0} = 0} once {@code h^1(O_X) = 0} is verified), so exact rows stay integral
+ * for the reference reader.
  */
 final class HodgeFormat {
     private static final ObjectMapper JSON = new ObjectMapper();
@@ -98,7 +99,8 @@ final class HodgeFormat {
     /** One reference line (the result must not be refused). */
     static String tsv(Configuration canonical, HodgeResult r, boolean fourfoldColumns) {
         StringBuilder sb = new StringBuilder(canonical.toText());
-        sb.append('\t').append(cell(r.h11())).append('\t').append(cell(r.h21()));
+        Interval h21 = r.h21() == null && r.dim() == 2 ? Interval.exact(0) : r.h21();
+        sb.append('\t').append(cell(r.h11())).append('\t').append(cell(h21));
         if (fourfoldColumns) {
             sb.append('\t').append(cell(r.h31())).append('\t').append(cell(r.h22()));
         }

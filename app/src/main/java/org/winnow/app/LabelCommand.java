@@ -122,10 +122,12 @@ final class LabelCommand implements Callable<Integer> {
                     futures.add(pool.submit(() -> {
                         HodgeResult r = engines.get().compute(c);
                         synchronized (writer) {
-                            if (r.status() == Status.REFUSED || (r.dim() == 4 && !wide)) {
+                            if (r.status() == Status.REFUSED || (r.dim() == 4) != wide) {
                                 refused.incrementAndGet();
                                 err.println("winnow label: " + c.toText() + ": not labelled: "
-                                        + (r.status() == Status.REFUSED ? r.reason() : "a four-fold in a file without four-fold columns"));
+                                        + (r.status() == Status.REFUSED ? r.reason()
+                                                : "dimension " + r.dim() + " does not match the file's columns; label "
+                                                        + "four-folds and lower dimensions into separate files"));
                                 err.flush();
                             } else {
                                 (r.status() == Status.EXACT ? exact : bounded).incrementAndGet();

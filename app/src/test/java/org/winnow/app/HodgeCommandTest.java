@@ -105,4 +105,14 @@ class HodgeCommandTest {
         assertEquals(4, again.size(), String.join("\n", again));
         assertTrue(second.err().get(second.err().size() - 1).contains("1 labelled"), String.join("\n", second.err()));
     }
+
+    @Test
+    void k3RowsAreIntegral(@TempDir Path dir) throws IOException {
+        // K3 surfaces: h11 = 20 (standard textbook value, from memory); h21 = 0 is written explicitly.
+        Path in = dir.resolve("k3.txt");
+        Path out = dir.resolve("k3.tsv");
+        Files.writeString(in, "3:4\n", StandardCharsets.UTF_8);
+        assertEquals(0, run("label", "--in", in.toString(), "--out", out.toString()).exit());
+        assertEquals(List.of("config\th11\th21\tstatus\tsource", "3:4\t20\t0\texact\tcomputed"), Files.readAllLines(out));
+    }
 }
