@@ -32,11 +32,11 @@ final class Reach {
     }
 
     /** The targets: the summands of the given total degree of each page. */
-    static Reach of(int totalDegree, KoszulPage... pages) {
-        List<KoszulPage.Summand> all = new ArrayList<>();
+    static Reach of(int totalDegree, BottPage... pages) {
+        List<BottPage.Summand> all = new ArrayList<>();
         List<int[]> degrees = new ArrayList<>();
-        for (KoszulPage page : pages) {
-            for (KoszulPage.Summand s : page.summands(totalDegree)) {
+        for (BottPage page : pages) {
+            for (BottPage.Summand s : page.summands(totalDegree)) {
                 all.add(s);
                 degrees.add(s.basis().degrees());
             }

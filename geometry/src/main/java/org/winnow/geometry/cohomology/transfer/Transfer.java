@@ -85,7 +85,7 @@ final class Transfer {
     }
 
     /** The matrix of {@code d_inf : V^t -> V^{t+1}} of the page (rows {@code V^{t+1}}). */
-    ModPMatrix differential(KoszulPage page, int t) {
+    ModPMatrix differential(BottPage page, int t) {
         int rows = page.dimension(t + 1);
         int cols = page.dimension(t);
         ModPMatrix out = new ModPMatrix(rows, cols);
@@ -96,7 +96,7 @@ final class Transfer {
         Cochain current = new Cochain(stride);
         Cochain next = new Cochain(stride);
         long[] column = new long[rows];
-        for (KoszulPage.Summand s : page.summands(t)) {
+        for (BottPage.Summand s : page.summands(t)) {
             for (int i = 0; i < s.basis().size(); i++) {
                 java.util.Arrays.fill(column, 0);
                 current.clear();
@@ -124,7 +124,7 @@ final class Transfer {
      * can still reach a summand of {@code targets} (terms of {@code targets} are checked with
      * {@code S'' subset of S}, the continuation with proper subsets).
      */
-    Cochain lift(KoszulPage.Summand s, int index, Reach targets) {
+    Cochain lift(BottPage.Summand s, int index, Reach targets) {
         Cochain out = new Cochain(stride);
         Cochain current = new Cochain(stride);
         Cochain next = new Cochain(stride);
@@ -161,7 +161,7 @@ final class Transfer {
     }
 
     /** {@code Pi_inf(c)} as a vector of {@code V^t} of the page, where c has total degree t. */
-    long[] project(Cochain c, KoszulPage page, int t) {
+    long[] project(Cochain c, BottPage page, int t) {
         long[] vector = new long[page.dimension(t)];
         Reach reach = Reach.of(t, page);
         projectInto(c, page, vector);
@@ -184,7 +184,7 @@ final class Transfer {
     }
 
     /** Adds {@code coefficient * iota(v)} for basis vector {@code index} of summand {@code s}. */
-    void addBottVector(KoszulPage.Summand s, int index, long coefficient, Cochain out) {
+    void addBottVector(BottPage.Summand s, int index, long coefficient, Cochain out) {
         BottBasis basis = s.basis();
         int[] e = basis.exponents(index);
         term.subset = s.subset();
@@ -259,7 +259,7 @@ final class Transfer {
     }
 
     /** Adds {@code Pi(in)} to the vector of {@code V^t}. */
-    void projectInto(Cochain in, KoszulPage page, long[] vector) {
+    void projectInto(Cochain in, BottPage page, long[] vector) {
         long[] keys = in.keys();
         for (int e = 0; e < in.size(); e++) {
             long v = in.value(e);
@@ -267,7 +267,7 @@ final class Transfer {
                 continue;
             }
             layout.unpack(keys, e * stride, term);
-            KoszulPage.Summand s = page.summand(term.subset);
+            BottPage.Summand s = page.summand(term.subset);
             if (s == null || s.degree() != model.degree(term) || !model.toBottForm(term)) {
                 continue;
             }

@@ -53,7 +53,7 @@ class TransferIdentitiesTest {
             for (int r = 0; r < k.length; r++) {
                 k[r] = higherOnly ? random.nextInt(-3, 4) : random.nextInt(-2, 3);
             }
-            KoszulPage page = KoszulPage.of(x, k);
+            BottPage page = BottPage.of(x, k);
             int largest = 0;
             for (int t = page.minDegree(); t <= page.maxDegree(); t++) {
                 largest = Math.max(largest, page.dimension(t));
@@ -71,11 +71,11 @@ class TransferIdentitiesTest {
 
     /** True iff some entry of {@code d_inf} joins summands whose columns differ by two or more. */
     static boolean hasHigherComponent(TransferredComplex complex) {
-        KoszulPage page = complex.page();
+        BottPage page = complex.page();
         for (int t = page.minDegree(); t < page.maxDegree(); t++) {
             ModPMatrix d = complex.differential(t);
-            for (KoszulPage.Summand s : page.summands(t)) {
-                for (KoszulPage.Summand u : page.summands(t + 1)) {
+            for (BottPage.Summand s : page.summands(t)) {
+                for (BottPage.Summand u : page.summands(t + 1)) {
                     if (s.column() - u.column() < 2) {
                         continue;
                     }
@@ -196,11 +196,11 @@ class TransferIdentitiesTest {
     @Test
     void transferredProjectionInvertsTransferredInclusion() {
         for (Case c : mixed(3, 505)) {
-            KoszulPage page = KoszulPage.of(c.x(), c.k());
+            BottPage page = BottPage.of(c.x(), c.k());
             Transfer transfer = new Transfer(c.x(), c.f(), CellLayout.of(c.x(), c.k()));
             for (int t = page.minDegree(); t <= page.maxDegree(); t++) {
                 Reach reach = Reach.of(t, page);
-                for (KoszulPage.Summand s : page.summands(t)) {
+                for (BottPage.Summand s : page.summands(t)) {
                     for (int v = 0; v < s.basis().size(); v++) {
                         long[] back = transfer.project(transfer.lift(s, v, reach), page, t);
                         for (int w = 0; w < back.length; w++) {
@@ -228,8 +228,8 @@ class TransferIdentitiesTest {
                 target[r] += degree[r];
             }
             Polynomial g = randomPolynomial(c.x().dims(), degree, random);
-            KoszulPage src = KoszulPage.of(c.x(), c.k());
-            KoszulPage tgt = KoszulPage.of(c.x(), target);
+            BottPage src = BottPage.of(c.x(), c.k());
+            BottPage tgt = BottPage.of(c.x(), target);
             Transfer transfer = new Transfer(c.x(), c.f(), CellLayout.of(c.x(), c.k(), target));
             TransferredComplex srcComplex = new TransferredComplex(src, transfer);
             TransferredComplex tgtComplex = new TransferredComplex(tgt, transfer);
@@ -249,11 +249,11 @@ class TransferIdentitiesTest {
         assertTrue(nonzero > 10, "the sample should exercise nonzero maps, got " + nonzero);
     }
 
-    private static ModPMatrix transferredMap(Transfer transfer, KoszulPage src, KoszulPage tgt, Polynomial g, int t) {
+    private static ModPMatrix transferredMap(Transfer transfer, BottPage src, BottPage tgt, Polynomial g, int t) {
         ModPMatrix out = new ModPMatrix(tgt.dimension(t), src.dimension(t));
         Reach reach = Reach.of(t, tgt);
         Transfer.PackedPolynomial packed = transfer.pack(g);
-        for (KoszulPage.Summand s : src.summands(t)) {
+        for (BottPage.Summand s : src.summands(t)) {
             for (int v = 0; v < s.basis().size(); v++) {
                 long[] image = transfer.project(transfer.multiply(transfer.lift(s, v, reach), packed), tgt, t);
                 for (int w = 0; w < image.length; w++) {
