@@ -81,6 +81,10 @@ final class CellLayout {
     static CellLayout of(Configuration x, int[]... twists) {
         Checks.requireArgument(twists.length > 0, "at least one twist is needed");
         int m = x.rows();
+        for (int r = 0; r < m; r++) {
+            Checks.requireArgument(x.n(r) <= 30, "row %d: P^%d is too large for a Cech cell bitmask (at most P^30)",
+                    r + 1, x.n(r));
+        }
         int[] lo = new int[m];
         int[] hi = new int[m];
         for (int r = 0; r < m; r++) {

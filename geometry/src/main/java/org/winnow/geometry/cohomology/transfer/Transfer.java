@@ -21,9 +21,11 @@ import org.winnow.geometry.linalg.ModPMatrix;
  *   iota_inf = sum_k (h t)^k iota,
  *   Pi_inf   = sum_k Pi (t h)^k.
  * </pre>
- * (Writing the series with {@code H'} instead changes the k-th term by {@code (-1)^k}, which is the
- * diagonal change of basis {@code (-1)^p} on V: the ranks are the same, but only the version here is
- * literally a chain map for D, which the tests check.)
+ * (The design writes the series with {@code H'}; that changes the k-th term by {@code (-1)^k}, i.e.
+ * conjugates {@code d_inf} by the diagonal signs {@code (-1)^p} on V and {@code iota_inf},
+ * {@code Pi_inf} by the column signs: ranks, kernels and transferred maps agree up to that change of
+ * basis, so either form gives the same cohomology and the same rho. The form here is the one for
+ * which {@code iota_inf} is literally a chain map into {@code (C, D)}.)
  *
  * <p>Not thread-safe: owns scratch cochains.
  */
@@ -34,8 +36,13 @@ final class Transfer {
     private final int stride;
     private final long[][][] fMonomials;
     private final long[][] fCoefficients;
+    private final int[][][] fExponents;
     private final CellTerm term;
+    private final CellTerm product;
     private final long[] buffer;
+    private final int[] total;
+    private final int[] deficit;
+    private final int[] room;
 
     Transfer(Configuration x, DefiningPolynomials f, CellLayout layout) {
         this.x = x;
@@ -44,13 +51,22 @@ final class Transfer {
         this.stride = layout.stride();
         this.fMonomials = new long[x.cols()][][];
         this.fCoefficients = new long[x.cols()][];
+        this.fExponents = new int[x.cols()][][];
         for (int j = 0; j < x.cols(); j++) {
             Polynomial p = f.polynomial(j);
             fMonomials[j] = packMonomials(p);
             fCoefficients[j] = coefficients(p);
+            fExponents[j] = new int[p.terms()][];
+            for (int m = 0; m < p.terms(); m++) {
+                fExponents[j][m] = p.monomial(m);
+            }
         }
         this.term = layout.newTerm();
+        this.product = layout.newTerm();
         this.buffer = new long[stride];
+        this.total = new int[x.rows()];
+        this.deficit = new int[x.rows()];
+        this.room = new int[x.rows()];
     }
 
     CellLayout layout() {
@@ -69,7 +85,7 @@ final class Transfer {
     }
 
     /** The matrix of {@code d_inf : V^t -> V^{t+1}} of the page (rows {@code V^{t+1}}). */
-    ModPMatrix differential(KoszulPage page, int t) {
+    ModPMatrix differential(BottPage page, int t) {
         int rows = page.dimension(t + 1);
         int cols = page.dimension(t);
         ModPMatrix out = new ModPMatrix(rows, cols);
@@ -80,14 +96,14 @@ final class Transfer {
         Cochain current = new Cochain(stride);
         Cochain next = new Cochain(stride);
         long[] column = new long[rows];
-        for (KoszulPage.Summand s : page.summands(t)) {
+        for (BottPage.Summand s : page.summands(t)) {
             for (int i = 0; i < s.basis().size(); i++) {
                 java.util.Arrays.fill(column, 0);
                 current.clear();
                 addBottVector(s, i, 1, current);
                 while (current.size() > 0) {
                     next.clear();
-                    koszul(current, next);
+                    koszul(current, next, reach);
                     projectInto(next, page, column);
                     current.clear();
                     homotopy(next, current, reach, true);
@@ -108,7 +124,7 @@ final class Transfer {
      * can still reach a summand of {@code targets} (terms of {@code targets} are checked with
      * {@code S'' subset of S}, the continuation with proper subsets).
      */
-    Cochain lift(KoszulPage.Summand s, int index, Reach targets) {
+    Cochain lift(BottPage.Summand s, int index, Reach targets) {
         Cochain out = new Cochain(stride);
         Cochain current = new Cochain(stride);
         Cochain next = new Cochain(stride);
@@ -116,7 +132,7 @@ final class Transfer {
         while (current.size() > 0) {
             addReaching(current, out, targets);
             next.clear();
-            koszul(current, next);
+            koszul(current, next, targets);
             current.clear();
             homotopy(next, current, targets, false);
         }
@@ -145,7 +161,7 @@ final class Transfer {
     }
 
     /** {@code Pi_inf(c)} as a vector of {@code V^t} of the page, where c has total degree t. */
-    long[] project(Cochain c, KoszulPage page, int t) {
+    long[] project(Cochain c, BottPage page, int t) {
         long[] vector = new long[page.dimension(t)];
         Reach reach = Reach.of(t, page);
         projectInto(c, page, vector);
@@ -159,7 +175,7 @@ final class Transfer {
                 return vector;
             }
             next.clear();
-            koszul(after, next);
+            koszul(after, next, reach);
             projectInto(next, page, vector);
             Cochain swap = current == c ? new Cochain(stride) : current;
             current = next;
@@ -168,7 +184,7 @@ final class Transfer {
     }
 
     /** Adds {@code coefficient * iota(v)} for basis vector {@code index} of summand {@code s}. */
-    void addBottVector(KoszulPage.Summand s, int index, long coefficient, Cochain out) {
+    void addBottVector(BottPage.Summand s, int index, long coefficient, Cochain out) {
         BottBasis basis = s.basis();
         int[] e = basis.exponents(index);
         term.subset = s.subset();
@@ -181,29 +197,45 @@ final class Transfer {
         out.add(buffer, 0, coefficient);
     }
 
-    /** Adds the Koszul differential t of {@code in} to {@code out}. */
-    void koszul(Cochain in, Cochain out) {
+    /**
+     * Adds the Koszul differential t of {@code in} to {@code out}, keeping only products that can
+     * still reach a target of {@code reach} (checked before insertion: most products cannot, and
+     * inserting them is the dominant cost otherwise).
+     */
+    void koszul(Cochain in, Cochain out, Reach reach) {
         long[] keys = in.keys();
+        int coordinates = layout.coordinates();
         for (int e = 0; e < in.size(); e++) {
             long v = in.value(e);
             if (v == 0) {
                 continue;
             }
             int base = e * stride;
-            int subset = (int) (keys[base] & ((1L << x.cols()) - 1));
+            layout.unpack(keys, base, term);
+            int subset = term.subset;
+            product.copyFrom(term);
             for (int rest = subset; rest != 0; rest &= rest - 1) {
                 int j = Integer.numberOfTrailingZeros(rest);
                 boolean odd = (Integer.bitCount(subset & ((1 << j) - 1)) & 1) == 1;
+                product.subset = subset & ~(1 << j);
                 long[][] monos = fMonomials[j];
+                int[][] exps = fExponents[j];
                 long[] coeffs = fCoefficients[j];
                 for (int m = 0; m < monos.length; m++) {
+                    int[] c = exps[m];
+                    for (int i = 0; i < coordinates; i++) {
+                        product.exp[i] = term.exp[i] + c[i];
+                    }
+                    if (!reaches(product, reach, false)) {
+                        continue;
+                    }
                     long[] mono = monos[m];
                     for (int w = 0; w < stride; w++) {
                         buffer[w] = keys[base + w] + mono[w];
                     }
                     buffer[0] -= 1L << j;
-                    long c = ModP.mul(v, coeffs[m]);
-                    out.add(buffer, 0, odd ? ModP.neg(c) : c);
+                    long coefficient = ModP.mul(v, coeffs[m]);
+                    out.add(buffer, 0, odd ? ModP.neg(coefficient) : coefficient);
                 }
             }
         }
@@ -218,7 +250,7 @@ final class Transfer {
                 continue;
             }
             layout.unpack(keys, e * stride, term);
-            if (!reach.reaches(term.subset, topFactors(term), strict)) {
+            if (!reaches(term, reach, strict)) {
                 continue;
             }
             boolean even = (Integer.bitCount(term.subset) & 1) == 0;
@@ -227,7 +259,7 @@ final class Transfer {
     }
 
     /** Adds {@code Pi(in)} to the vector of {@code V^t}. */
-    void projectInto(Cochain in, KoszulPage page, long[] vector) {
+    void projectInto(Cochain in, BottPage page, long[] vector) {
         long[] keys = in.keys();
         for (int e = 0; e < in.size(); e++) {
             long v = in.value(e);
@@ -235,7 +267,7 @@ final class Transfer {
                 continue;
             }
             layout.unpack(keys, e * stride, term);
-            KoszulPage.Summand s = page.summand(term.subset);
+            BottPage.Summand s = page.summand(term.subset);
             if (s == null || s.degree() != model.degree(term) || !model.toBottForm(term)) {
                 continue;
             }
@@ -256,22 +288,39 @@ final class Transfer {
                 continue;
             }
             layout.unpack(keys, e * stride, term);
-            if (targets.reaches(term.subset, topFactors(term), false)) {
+            if (reaches(term, targets, false)) {
                 out.add(keys, e * stride, v);
             }
         }
     }
 
-    /** Factors in the inverse-monomial state (sigma = all, every exponent negative). */
-    private int topFactors(CellTerm t) {
-        int mask = 0;
+    /** {@link Reach#reaches} for an unpacked term. */
+    private boolean reaches(CellTerm term, Reach reach, boolean strict) {
+        int top = 0;
         for (int r = 0; r < layout.factors(); r++) {
-            int full = (1 << layout.size(r)) - 1;
-            if (t.sigma[r] == full && model.negatives(t, r) == full) {
-                mask |= 1 << r;
+            int off = layout.offset(r);
+            int sum = 0;
+            int neg = 0;
+            int slack = 0;
+            boolean allNegative = true;
+            for (int i = 0; i < layout.size(r); i++) {
+                int e = term.exp[off + i];
+                sum += e;
+                if (e < 0) {
+                    neg -= e;
+                } else {
+                    allNegative = false;
+                }
+                slack += -1 - e;
+            }
+            total[r] = sum;
+            deficit[r] = neg;
+            room[r] = slack;
+            if (allNegative && term.sigma[r] == (1 << layout.size(r)) - 1) {
+                top |= 1 << r;
             }
         }
-        return mask;
+        return reach.reaches(term.subset, top, total, deficit, room, strict);
     }
 
     private long[][] packMonomials(Polynomial p) {

@@ -12,18 +12,18 @@ import org.winnow.geometry.linalg.ModPMatrix;
  * <p>Differentials are computed on first use and cached. Not thread-safe.
  */
 public final class TransferredComplex {
-    private final KoszulPage page;
+    private final BottPage page;
     private final Transfer transfer;
     private final Map<Integer, ModPMatrix> differentials = new HashMap<>();
     private final Map<Integer, Integer> ranks = new HashMap<>();
 
-    TransferredComplex(KoszulPage page, Transfer transfer) {
+    TransferredComplex(BottPage page, Transfer transfer) {
         this.page = page;
         this.transfer = transfer;
     }
 
     /** The E1 page, i.e. the graded vector space V with its Bott bases. */
-    public KoszulPage page() {
+    public BottPage page() {
         return page;
     }
 

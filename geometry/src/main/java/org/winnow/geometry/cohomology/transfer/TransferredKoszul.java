@@ -52,7 +52,7 @@ public final class TransferredKoszul {
     /** The transferred complex of {@code O_X(k)}; its differentials are computed on demand. */
     public TransferredComplex complex(int[] k) {
         Checks.requireArgument(k.length == x.rows(), "twist has %d entries for %d rows", k.length, x.rows());
-        KoszulPage page = KoszulPage.of(x, k);
+        BottPage page = BottPage.of(x, k);
         return new TransferredComplex(page, new Transfer(x, f, CellLayout.of(x, k)));
     }
 
@@ -90,22 +90,22 @@ public final class TransferredKoszul {
             twists[m + j] = column(j);
         }
         Transfer transfer = new Transfer(x, f, CellLayout.of(x, twists));
-        KoszulPage[] sources = new KoszulPage[m];
+        BottPage[] sources = new BottPage[m];
         TransferredComplex[] sourceComplexes = new TransferredComplex[m];
         int sourceCocycles = 0;
         for (int r = 0; r < m; r++) {
-            sources[r] = KoszulPage.of(x, twists[r]);
+            sources[r] = BottPage.of(x, twists[r]);
             sourceComplexes[r] = new TransferredComplex(sources[r], transfer);
             if (sources[r].dimension(t) > 0) {
                 sourceCocycles += (x.n(r) + 1) * sourceComplexes[r].cocycles(t).cols();
             }
         }
-        KoszulPage[] targets = new KoszulPage[cols];
+        BottPage[] targets = new BottPage[cols];
         ModPMatrix[] boundaries = new ModPMatrix[cols];
         int[] rowOffset = new int[cols + 1];
         int boundaryCols = 0;
         for (int j = 0; j < cols; j++) {
-            targets[j] = KoszulPage.of(x, twists[m + j]);
+            targets[j] = BottPage.of(x, twists[m + j]);
             rowOffset[j + 1] = rowOffset[j] + targets[j].dimension(t);
             boundaries[j] = targets[j].dimension(t) == 0 ? new ModPMatrix(0, 0)
                     : new TransferredComplex(targets[j], transfer).coboundaries(t);
@@ -134,7 +134,7 @@ public final class TransferredKoszul {
                 continue;
             }
             List<Cochain> lifts = new ArrayList<>();
-            for (KoszulPage.Summand s : sources[r].summands(t)) {
+            for (BottPage.Summand s : sources[r].summands(t)) {
                 for (int v = 0; v < s.basis().size(); v++) {
                     lifts.add(transfer.lift(s, v, reach));
                 }

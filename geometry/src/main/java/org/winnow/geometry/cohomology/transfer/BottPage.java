@@ -2,13 +2,14 @@ package org.winnow.geometry.cohomology.transfer;
 
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.cohomology.AmbientCohomology;
 import org.winnow.geometry.cohomology.BottBasis;
+import org.winnow.geometry.cohomology.KoszulPage;
 
 /**
  * The Koszul E1 page of {@code O_X(k)} with explicit Bott bases: the nonzero summands
@@ -18,11 +19,10 @@ import org.winnow.geometry.cohomology.BottBasis;
  * total degree t in increasing order of the subset bitmask S; {@link Summand#offset} is the first
  * index of a summand inside {@code V^t}.
  *
- * <p>Subsets are enumerated depth-first over the columns, pruning a branch as soon as some row's
- * residual degree lies in {@code [-n_r, -1]} and the remaining columns cannot push it below
- * {@code -n_r - 1} (degrees only decrease along the search).
+ * <p>The summands are those of the spectral-sequence page {@link KoszulPage}; this class adds the
+ * explicit bases the transfer works in.
  */
-public final class KoszulPage {
+public final class BottPage {
     /**
      * One nonzero E1 summand.
      *
@@ -58,7 +58,7 @@ public final class KoszulPage {
     private final List<List<Summand>> byDegree;
     private final Map<Integer, Summand> bySubset;
 
-    private KoszulPage(Configuration x, int[] twist, List<BottBasis> bases, List<Integer> subsets) {
+    private BottPage(Configuration x, int[] twist, List<BottBasis> bases, List<Integer> subsets) {
         this.x = x;
         this.twist = twist.clone();
         int lo = Integer.MAX_VALUE;
@@ -86,67 +86,23 @@ public final class KoszulPage {
     }
 
     /**
-     * The E1 page of {@code O_X(k)}.
+     * The E1 page of {@code O_X(k)} with Bott bases.
      *
      * @throws IllegalArgumentException if {@code k} has the wrong length or a summand is too large for
      *                                  an explicit basis
      */
-    public static KoszulPage of(Configuration x, int[] k) {
+    public static BottPage of(Configuration x, int[] k) {
         Checks.requireArgument(k.length == x.rows(), "twist has %d entries for %d rows", k.length, x.rows());
-        int m = x.rows();
-        int cols = x.cols();
-        int[][] remaining = new int[cols + 1][m];
-        for (int j = cols - 1; j >= 0; j--) {
-            for (int r = 0; r < m; r++) {
-                remaining[j][r] = remaining[j + 1][r] + x.q(r, j);
-            }
-        }
-        List<Integer> subsets = new ArrayList<>();
-        collect(x, remaining, 0, 0, k.clone(), subsets);
-        subsets.sort(null);
+        List<KoszulPage.Summand> found = new ArrayList<>(KoszulPage.of(x, k).summands());
+        found.sort(Comparator.comparingInt(KoszulPage.Summand::subset));
         List<BottBasis> bases = new ArrayList<>();
+        List<Integer> subsets = new ArrayList<>();
         int[] n = x.dims();
-        for (int s : subsets) {
-            bases.add(BottBasis.of(n, residual(x, k, s)));
+        for (KoszulPage.Summand s : found) {
+            bases.add(BottBasis.of(n, s.degrees()));
+            subsets.add(s.subset());
         }
-        return new KoszulPage(x, k, bases, subsets);
-    }
-
-    private static void collect(Configuration x, int[][] remaining, int j, int subset, int[] residual,
-            List<Integer> out) {
-        for (int r = 0; r < x.rows(); r++) {
-            int v = residual[r];
-            if (v <= -1 && v >= -x.n(r) && v - remaining[j][r] > -x.n(r) - 1) {
-                return;
-            }
-        }
-        if (j == x.cols()) {
-            if (!AmbientCohomology.of(x.dims(), residual).isZero()) {
-                out.add(subset);
-            }
-            return;
-        }
-        collect(x, remaining, j + 1, subset, residual, out);
-        for (int r = 0; r < x.rows(); r++) {
-            residual[r] -= x.q(r, j);
-        }
-        collect(x, remaining, j + 1, subset | (1 << j), residual, out);
-        for (int r = 0; r < x.rows(); r++) {
-            residual[r] += x.q(r, j);
-        }
-    }
-
-    /** {@code k - q_S}. */
-    static int[] residual(Configuration x, int[] k, int subset) {
-        int[] out = k.clone();
-        for (int j = 0; j < x.cols(); j++) {
-            if ((subset & (1 << j)) != 0) {
-                for (int r = 0; r < x.rows(); r++) {
-                    out[r] -= x.q(r, j);
-                }
-            }
-        }
-        return out;
+        return new BottPage(x, k, bases, subsets);
     }
 
     public Configuration configuration() {
