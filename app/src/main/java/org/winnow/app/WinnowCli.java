@@ -22,6 +22,7 @@ import picocli.CommandLine.Command;
             ProduceCommand.class,
             ScoreCommand.class,
             SinkCommand.class,
+            org.winnow.app.report.ReportCommand.class,
         })
 public final class WinnowCli implements Runnable {
     /** Exit code for bad input; picocli also uses 2 for bad options. */
