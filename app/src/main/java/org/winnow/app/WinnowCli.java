@@ -23,6 +23,7 @@ import picocli.CommandLine.Command;
             ScoreCommand.class,
             SinkCommand.class,
             ExportWeightsCommand.class,
+            org.winnow.app.report.ReportCommand.class,
         })
 public final class WinnowCli implements Runnable {
     /** Exit code for bad input; picocli also uses 2 for bad options. */

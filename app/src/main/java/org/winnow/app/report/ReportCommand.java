@@ -1,0 +1,70 @@
+package org.winnow.app.report;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+
+/** {@code winnow report}: one self-contained HTML page of a scan's result. */
+@Command(name = "report", mixinStandardHelpOptions = true,
+        description = {"Write one self-contained HTML file (pictures inline, nothing fetched from a network) that",
+            "shows a scan's result: run summary, rejection funnel, novelty and confidence distributions and a",
+            "sortable table of the most novel survivors."})
+public final class ReportCommand implements Callable<Integer> {
+    /** Exit code for bad input or options, as every winnow command. */
+    private static final int EXIT_BAD_INPUT = 2;
+
+    @Spec
+    CommandSpec spec;
+
+    @Parameters(index = "0", paramLabel = "DIR", description = "The --out directory of a scan.")
+    Path dir;
+
+    @Option(names = "--out", required = true, paramLabel = "report.html", description = "The HTML file to write.")
+    Path out;
+
+    @Option(names = "--top", defaultValue = "500", paramLabel = "N",
+            description = "Rows in the survivors table, most novel first (default ${DEFAULT-VALUE}).")
+    int top;
+
+    @Override
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        if (top < 1) {
+            return fail(err, "--top " + top + ": must be at least 1");
+        }
+        ScanResult scan;
+        try {
+            scan = ScanResult.read(dir);
+        } catch (ScanResult.BadScanDir e) {
+            return fail(err, e.getMessage());
+        }
+        try {
+            String html = ReportHtml.render(scan, "winnow scan " + scan.manifest().runId(), top);
+            Path parent = out.toAbsolutePath().getParent();
+            if (parent != null) {
+                Files.createDirectories(parent);
+            }
+            Files.writeString(out, html, StandardCharsets.UTF_8);
+        } catch (IOException e) {
+            return fail(err, out + ": cannot write the report (" + e.getMessage() + ")");
+        }
+        PrintWriter o = spec.commandLine().getOut();
+        o.println("report: " + out + " (" + scan.survivors().size() + " survivors)");
+        o.flush();
+        return 0;
+    }
+
+    private static int fail(PrintWriter err, String message) {
+        err.println("winnow report: " + message);
+        err.flush();
+        return EXIT_BAD_INPUT;
+    }
+}

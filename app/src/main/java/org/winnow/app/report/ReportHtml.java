@@ -1,0 +1,168 @@
+package org.winnow.app.report;
+
+import java.io.IOException;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import org.winnow.sink.Manifest;
+import org.winnow.sink.SurvivorLine;
+
+/**
+ * Renders a {@link ScanResult} as one HTML page that needs nothing else: styles and the table sorter
+ * are inline and every picture is a data URI, so the file can be mailed and opened offline.
+ */
+final class ReportHtml {
+    /** The section ids, in page order; tests and readers find sections by them. */
+    static final List<String> SECTIONS = List.of("summary", "funnel", "novelty", "confidence", "survivors");
+
+    private static final String STYLE = "body{font-family:sans-serif;max-width:1000px;margin:2em auto;color:#222}"
+            + "table{border-collapse:collapse}td,th{border:1px solid #ccc;padding:2px 6px;font-size:13px}"
+            + "th{background:#eee;cursor:pointer}td.num{text-align:right}img{max-width:100%}"
+            + "code{font-size:12px}";
+
+    // Sorts by the clicked column; numeric when both cells parse as numbers, text otherwise.
+    private static final String SORTER = "document.querySelectorAll('table.sortable').forEach(function(t){"
+            + "t.querySelectorAll('th').forEach(function(th,col){th.addEventListener('click',function(){"
+            + "var body=t.tBodies[0];var rows=Array.prototype.slice.call(body.rows);"
+            + "var dir=th.dataset.dir==='asc'?-1:1;th.dataset.dir=dir===1?'asc':'desc';"
+            + "rows.sort(function(a,b){var x=a.cells[col].textContent,y=b.cells[col].textContent;"
+            + "var nx=parseFloat(x),ny=parseFloat(y);"
+            + "if(!isNaN(nx)&&!isNaN(ny)){return dir*(nx-ny);}return dir*x.localeCompare(y);});"
+            + "rows.forEach(function(r){body.appendChild(r);});});});});";
+
+    private ReportHtml() {}
+
+    /** The page; {@code top} caps the survivors table (the most novel first). */
+    static String render(ScanResult scan, String title, int top) throws IOException {
+        Manifest m = scan.manifest();
+        StringBuilder h = new StringBuilder(1 << 16);
+        h.append("<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\"><title>")
+                .append(esc(title)).append("</title><style>").append(STYLE).append("</style></head><body>\n");
+        h.append("<h1>").append(esc(title)).append("</h1>\n");
+        summary(h, m);
+        section(h, "funnel", "Rejection funnel");
+        h.append("<p>Every scored candidate has exactly one reason.</p>\n");
+        image(h, ReportCharts.funnel(m.counts().rejectedByReason(), m.counts().keptByReason()), "candidates by reason");
+        h.append("</section>\n");
+        double[] novelty = scan.survivors().stream().mapToDouble(SurvivorLine::novelty).toArray();
+        double[] confidence = scan.survivors().stream().mapToDouble(SurvivorLine::confidence).toArray();
+        histogramSection(h, "novelty", "Novelty of the survivors", novelty, "novelty");
+        histogramSection(h, "confidence", "Confidence of the h11 predictions", confidence, "h11 confidence");
+        survivors(h, scan.survivors(), top);
+        h.append("<script>").append(SORTER).append("</script>\n</body></html>\n");
+        return h.toString();
+    }
+
+    private static void summary(StringBuilder h, Manifest m) {
+        section(h, "summary", "Run summary");
+        Manifest.Counts c = m.counts();
+        h.append("<table>\n");
+        row(h, "run id", m.runId());
+        row(h, "complete", m.complete() ? "yes" : "no (the scan has not finished; counts so far)");
+        row(h, "input", m.source());
+        row(h, "rules", String.join("; ", m.rules()));
+        row(h, "model checksum", m.modelChecksum());
+        row(h, "enumerated", Long.toString(c.enumerated()));
+        row(h, "duplicates", Long.toString(c.duplicates()));
+        row(h, "candidates", Long.toString(c.candidates()));
+        row(h, "bad input lines", Long.toString(c.badInput()));
+        row(h, "scored", Long.toString(c.scored()));
+        row(h, "rejected", Long.toString(c.rejected()) + " (" + percent(c.rejected(), c.scored()) + ")");
+        row(h, "kept", Long.toString(c.kept()) + " (" + percent(c.kept(), c.scored()) + ")");
+        for (Map.Entry<String, Long> e : c.rejectedByReason().entrySet()) {
+            row(h, "rejected: " + e.getKey(), Long.toString(e.getValue()));
+        }
+        for (Map.Entry<String, Long> e : c.keptByReason().entrySet()) {
+            row(h, "kept: " + e.getKey(), Long.toString(e.getValue()));
+        }
+        Manifest.Timings t = m.timings();
+        if (t != null) {
+            row(h, "started", String.valueOf(t.startedAt()));
+            row(h, "updated", String.valueOf(t.updatedAt()));
+            row(h, "elapsed", String.format(Locale.ROOT, "%.2f s over %d session(s)", t.elapsedSeconds(), t.sessions()));
+            row(h, "rate", String.format(Locale.ROOT, "%.1f candidates/s (last session)", t.candidatesPerSecond()));
+        }
+        h.append("</table>\n</section>\n");
+    }
+
+    private static void histogramSection(StringBuilder h, String id, String heading, double[] values, String axis)
+            throws IOException {
+        section(h, id, heading);
+        if (values.length == 0) {
+            h.append("<p>No survivors, so nothing to show.</p>\n");
+        } else {
+            h.append(String.format(Locale.ROOT, "<p>%d survivors; median %.3f.</p>%n", values.length, median(values)));
+            image(h, ReportCharts.histogram(values, heading, axis), heading);
+        }
+        h.append("</section>\n");
+    }
+
+    private static void survivors(StringBuilder h, List<SurvivorLine> all, int top) {
+        section(h, "survivors", "Top survivors");
+        List<SurvivorLine> shown = all.stream()
+                .sorted(Comparator.comparingDouble(SurvivorLine::novelty).reversed()
+                        .thenComparing(SurvivorLine::config))
+                .limit(top).toList();
+        h.append(String.format(Locale.ROOT,
+                "<p>The %d most novel of %d survivors; click a column heading to sort.</p>%n", shown.size(), all.size()));
+        h.append("<table class=\"sortable\"><thead><tr>");
+        for (String col : SurvivorLine.COLUMNS.split("\t")) {
+            h.append("<th>").append(esc(col)).append("</th>");
+        }
+        h.append("</tr></thead><tbody>\n");
+        for (SurvivorLine s : shown) {
+            h.append("<tr><td><code>").append(esc(s.config())).append("</code></td>");
+            num(h, Long.toString(s.chi()));
+            num(h, Integer.toString(s.h11()));
+            num(h, String.format(Locale.ROOT, "%.4f", s.confidence()));
+            num(h, s.h21() == null ? SurvivorLine.UNDETERMINED : s.h21().toString());
+            num(h, String.format(Locale.ROOT, "%.4f", s.novelty()));
+            h.append("<td>").append(esc(s.keptBecause().code())).append("</td><td><code>")
+                    .append(esc(s.nearestReference().isEmpty() ? SurvivorLine.UNDETERMINED : s.nearestReference()))
+                    .append("</code></td></tr>\n");
+        }
+        h.append("</tbody></table>\n</section>\n");
+    }
+
+    private static void section(StringBuilder h, String id, String heading) {
+        h.append("<section id=\"").append(id).append("\"><h2>").append(esc(heading)).append("</h2>\n");
+    }
+
+    private static void row(StringBuilder h, String name, String value) {
+        h.append("<tr><th>").append(esc(name)).append("</th><td>").append(esc(value)).append("</td></tr>\n");
+    }
+
+    private static void num(StringBuilder h, String value) {
+        h.append("<td class=\"num\">").append(esc(value)).append("</td>");
+    }
+
+    private static void image(StringBuilder h, String dataUri, String alt) {
+        h.append("<img alt=\"").append(esc(alt)).append("\" src=\"").append(dataUri).append("\">\n");
+    }
+
+    private static String percent(long part, long whole) {
+        return whole == 0 ? "-" : String.format(Locale.ROOT, "%.1f%%", 100.0 * part / whole);
+    }
+
+    private static double median(double[] values) {
+        double[] s = values.clone();
+        java.util.Arrays.sort(s);
+        int n = s.length;
+        return n % 2 == 1 ? s[n / 2] : (s[n / 2 - 1] + s[n / 2]) / 2;
+    }
+
+    static String esc(String s) {
+        StringBuilder b = new StringBuilder(s.length());
+        for (char ch : s.toCharArray()) {
+            switch (ch) {
+                case '<' -> b.append("&lt;");
+                case '>' -> b.append("&gt;");
+                case '&' -> b.append("&amp;");
+                case '"' -> b.append("&quot;");
+                default -> b.append(ch);
+            }
+        }
+        return b.toString();
+    }
+}
