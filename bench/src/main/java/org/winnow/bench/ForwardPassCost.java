@@ -126,7 +126,7 @@ public final class ForwardPassCost implements Callable<Integer> {
         int dim = r.dim();
         ReferenceSet one = new ReferenceSet(new String[] {r.configs()[0]}, new long[] {r.chi()[0]},
                 new int[][] {r.hodge()[0]}, Arrays.copyOf(r.embeddings(), dim), dim);
-        Calibration cal = new Calibration(1, 1, new double[0], new int[] {r.h11(0)},
+        Calibration cal = new Calibration(1, 1, 0.0, 0.0, new double[0], new int[] {r.h11(0)},
                 new double[][] {new double[Calibration.QUANTILES.length]});
         return new FrozenModel(m.architecture(), m.parameters(), m.normalisation(), one, cal, m.metadata());
     }
