@@ -42,6 +42,7 @@ def load_model(path):
         "read1": (arr(layers["readout_hidden"]["weight"]), arr(layers["readout_hidden"]["bias"])),
         "read2": (arr(layers["readout_out"]["weight"]), arr(layers["readout_out"]["bias"])),
         "k": int(w["vote"]["k"]),
+        "bandwidth": float(w["vote"].get("bandwidth", 0.0)),
         "novelty_k": int(w["vote"]["novelty_k"]),
         "floor": float(w["vote"]["distance_floor"]),
         "classes": np.asarray(w["vote"]["classes"], dtype=np.int64),
@@ -142,7 +143,12 @@ def vote(model, e, search):
     nk = model["novelty_k"]
     idx, dist = nearest(model, e, max(k, nk), search)
     cls = model["ref_class"][idx[:, :k]]
-    w = 1.0 / (dist[:, :k] + model["floor"])
+    d = dist[:, :k]
+    bw = model["bandwidth"]
+    if bw > 0:  # Gaussian kernel relative to the nearest neighbour, as winnow's Predictor
+        w = np.exp(-(d * d - d[:, :1] * d[:, :1]) * (0.5 / (bw * bw)))
+    else:
+        w = 1.0 / (d + model["floor"])
     same = cls[:, :, None] == cls[:, None, :]
     class_weight = (w[:, None, :] * same).sum(2)          # weight of each neighbour's class
     best = class_weight.max(1, keepdims=True)

@@ -90,6 +90,8 @@ final class WeightsExport {
         vote.put("k", c.k());
         vote.put("novelty_k", c.noveltyK());
         vote.put("distance_floor", 1e-12);
+        vote.put("bandwidth", c.bandwidth());
+        vote.put("tail_scale", c.tailScale());
         vote.set("classes", ints(c.classes()));
         vote.set("loo_distances", vector(c.looDistances()));
 
