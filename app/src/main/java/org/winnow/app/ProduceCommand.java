@@ -31,12 +31,8 @@ final class ProduceCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--kafka", required = true, paramLabel = "HOST:PORT", description = "Kafka bootstrap address.")
-    String kafka;
-
-    @Option(names = "--kafka-config", paramLabel = "F",
-            description = "Kafka client properties passed through (TLS, SASL, tuning).")
-    Path kafkaConfig;
+    @picocli.CommandLine.Mixin
+    KafkaConnectionOptions connection = new KafkaConnectionOptions();
 
     @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to create or continue.")
     String run;
@@ -66,7 +62,7 @@ final class ProduceCommand implements Callable<Integer> {
             if (!Files.isReadable(input)) {
                 return fail(err, "--input " + input + ": no such readable file");
             }
-            KafkaSettings k = kafkaConfig == null ? KafkaSettings.of(kafka) : KafkaSettings.of(kafka, kafkaConfig);
+            KafkaSettings k = connection.settings();
             // The input's bytes identify the run's source, so a second producer with another file is refused.
             String identity = input.getFileName() + " sha256:" + RunIds.of(List.of(), input);
             settings = new ClusterProducer.Settings(k, new RunTopics(run), new TopicLayout(partitions, replication),

@@ -33,12 +33,8 @@ final class ScoreCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--kafka", required = true, paramLabel = "HOST:PORT", description = "Kafka bootstrap address.")
-    String kafka;
-
-    @Option(names = "--kafka-config", paramLabel = "F",
-            description = "Kafka client properties passed through (TLS, SASL, tuning).")
-    Path kafkaConfig;
+    @picocli.CommandLine.Mixin
+    KafkaConnectionOptions connection = new KafkaConnectionOptions();
 
     @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to join.")
     String run;
@@ -71,7 +67,7 @@ final class ScoreCommand implements Callable<Integer> {
         KeepRules rules;
         ModelScoring scoring;
         try {
-            settings = kafkaConfig == null ? KafkaSettings.of(kafka) : KafkaSettings.of(kafka, kafkaConfig);
+            settings = connection.settings();
             topics = new RunTopics(run);
             rules = rules();
         } catch (IllegalArgumentException e) {
@@ -104,7 +100,7 @@ final class ScoreCommand implements Callable<Integer> {
                 }
             });
             Runtime.getRuntime().addShutdownHook(hook);
-            err.println("winnow score: scorer " + name + " joined run " + run + " on " + kafka);
+            err.println("winnow score: scorer " + name + " joined run " + run + " on " + connection.kafka);
             err.flush();
             scorer.run();
             err.println("winnow score: scorer " + name + " stopped after " + scored.get() + " candidates");

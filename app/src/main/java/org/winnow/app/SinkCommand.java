@@ -29,12 +29,8 @@ final class SinkCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--kafka", required = true, paramLabel = "HOST:PORT", description = "Kafka bootstrap address.")
-    String kafka;
-
-    @Option(names = "--kafka-config", paramLabel = "F",
-            description = "Kafka client properties passed through (TLS, SASL, tuning).")
-    Path kafkaConfig;
+    @picocli.CommandLine.Mixin
+    KafkaConnectionOptions connection = new KafkaConnectionOptions();
 
     @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to write.")
     String run;
@@ -55,7 +51,7 @@ final class SinkCommand implements Callable<Integer> {
         RunTopics topics;
         SinkOptions options;
         try {
-            settings = kafkaConfig == null ? KafkaSettings.of(kafka) : KafkaSettings.of(kafka, kafkaConfig);
+            settings = connection.settings();
             topics = new RunTopics(run);
             options = new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5));
         } catch (IllegalArgumentException e) {
