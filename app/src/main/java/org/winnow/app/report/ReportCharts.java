@@ -1,17 +1,35 @@
 package org.winnow.app.report;
 
+import java.awt.BasicStroke;
 import java.awt.Color;
+import java.awt.Font;
+import java.awt.Paint;
+import java.awt.Shape;
+import java.awt.geom.Ellipse2D;
+import java.awt.geom.Path2D;
 import java.io.IOException;
+import java.util.ArrayList;
 import java.util.Base64;
+import java.util.List;
 import java.util.Map;
 import org.jfree.chart.ChartFactory;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
+import org.jfree.chart.annotations.XYTextAnnotation;
+import org.jfree.chart.axis.NumberAxis;
 import org.jfree.chart.plot.CategoryPlot;
 import org.jfree.chart.plot.PlotOrientation;
+import org.jfree.chart.plot.SeriesRenderingOrder;
 import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.LookupPaintScale;
+import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
+import org.jfree.chart.title.PaintScaleLegend;
+import org.jfree.chart.ui.RectangleEdge;
+import org.jfree.chart.ui.TextAnchor;
 import org.jfree.data.category.DefaultCategoryDataset;
 import org.jfree.data.statistics.HistogramDataset;
+import org.jfree.data.xy.XYSeries;
+import org.jfree.data.xy.XYSeriesCollection;
 
 /** The report's pictures, drawn headless with JFreeChart and returned as PNG data URIs. */
 final class ReportCharts {
@@ -48,9 +66,116 @@ final class ReportCharts {
         return dataUri(chart);
     }
 
+    /**
+     * The embedding map: survivors below the guard as small dots, reference examples as circles,
+     * novel survivors as triangles with a dark edge and cluster medoids as large diamonds labelled
+     * C1, C2, ...; the fill colour is h11 (true for the reference, predicted for survivors).
+     */
+    static String embeddingMap(ModelView v) throws IOException {
+        List<ModelView.Point> medoids = new ArrayList<>();
+        if (v.clusters() != null) {
+            for (NoveltyClusters.Group g : v.clusters().clusters()) {
+                medoids.add(v.novel().get(g.medoid()));
+            }
+        }
+        List<List<ModelView.Point>> layers = List.of(v.others(), v.reference(), v.novel(), medoids);
+        String[] names = {"survivor (predicted h11)", "reference (true h11)", "novel survivor", "cluster medoid"};
+        Shape[] shapes = {new Ellipse2D.Double(-1.5, -1.5, 3, 3), new Ellipse2D.Double(-3.5, -3.5, 7, 7),
+            triangle(5), diamond(8)};
+        int lo = Integer.MAX_VALUE;
+        int hi = Integer.MIN_VALUE;
+        XYSeriesCollection data = new XYSeriesCollection();
+        for (int s = 0; s < layers.size(); s++) {
+            XYSeries series = new XYSeries(names[s], false, true);
+            for (ModelView.Point p : layers.get(s)) {
+                series.add(p.x(), p.y());
+                lo = Math.min(lo, p.h11());
+                hi = Math.max(hi, p.h11());
+            }
+            data.addSeries(series);
+        }
+        final int low = lo;
+        final int high = Math.max(lo, hi);
+        XYLineAndShapeRenderer renderer = new XYLineAndShapeRenderer(false, true) {
+            private static final long serialVersionUID = 1L;
+
+            @Override
+            public Paint getItemPaint(int series, int item) {
+                return h11Colour(layers.get(series).get(item).h11(), low, high);
+            }
+
+            @Override
+            public Paint getItemOutlinePaint(int series, int item) {
+                return series == 0 ? getItemPaint(series, item) : Color.DARK_GRAY;
+            }
+        };
+        renderer.setUseOutlinePaint(true);
+        renderer.setDrawOutlines(true);
+        for (int s = 0; s < shapes.length; s++) {
+            renderer.setSeriesShape(s, shapes[s]);
+            renderer.setSeriesPaint(s, Color.GRAY);
+            renderer.setSeriesOutlinePaint(s, Color.DARK_GRAY);
+            renderer.setSeriesOutlineStroke(s, new BasicStroke(s == 3 ? 2f : 0.8f));
+        }
+        XYPlot plot = new XYPlot(data, new NumberAxis("principal axis 1 of the reference"),
+                new NumberAxis("principal axis 2 of the reference"), renderer);
+        plot.setSeriesRenderingOrder(SeriesRenderingOrder.FORWARD);
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setDomainGridlinePaint(Color.LIGHT_GRAY);
+        plot.setRangeGridlinePaint(Color.LIGHT_GRAY);
+        Font font = new Font(Font.SANS_SERIF, Font.BOLD, 12);
+        for (int c = 0; c < medoids.size(); c++) {
+            XYTextAnnotation a = new XYTextAnnotation("C" + (c + 1), medoids.get(c).x(), medoids.get(c).y());
+            a.setFont(font);
+            a.setTextAnchor(TextAnchor.BOTTOM_LEFT);
+            plot.addAnnotation(a);
+        }
+        JFreeChart chart = new JFreeChart("embedding map", JFreeChart.DEFAULT_TITLE_FONT, plot, true);
+        LookupPaintScale scale = new LookupPaintScale(low, high + 1, Color.GRAY);
+        for (int h = low; h <= high; h++) {
+            scale.add(h, h11Colour(h, low, high));
+        }
+        NumberAxis axis = new NumberAxis("h11");
+        axis.setStandardTickUnits(NumberAxis.createIntegerTickUnits());
+        PaintScaleLegend legend = new PaintScaleLegend(scale, axis);
+        legend.setPosition(RectangleEdge.RIGHT);
+        legend.setMargin(4, 4, 40, 4);
+        chart.addSubtitle(legend);
+        return dataUri(chart, WIDTH, 720);
+    }
+
+    /** Hues from blue (low h11) through green to red (high), one step per h11 value. */
+    static Color h11Colour(int h11, int low, int high) {
+        float f = high == low ? 0f : (float) (h11 - low) / (high - low);
+        return Color.getHSBColor(0.66f * (1f - f), 0.85f, 0.9f);
+    }
+
+    private static Shape triangle(double r) {
+        Path2D.Double t = new Path2D.Double();
+        t.moveTo(0, -r);
+        t.lineTo(r, r);
+        t.lineTo(-r, r);
+        t.closePath();
+        return t;
+    }
+
+    private static Shape diamond(double r) {
+        Path2D.Double d = new Path2D.Double();
+        d.moveTo(0, -r);
+        d.lineTo(r, 0);
+        d.lineTo(0, r);
+        d.lineTo(-r, 0);
+        d.closePath();
+        return d;
+    }
+
     private static String dataUri(JFreeChart chart) throws IOException {
+        return dataUri(chart, WIDTH, HEIGHT);
+    }
+
+    private static String dataUri(JFreeChart chart, int width, int height) throws IOException {
         chart.setBackgroundPaint(Color.WHITE);
-        byte[] png = ChartUtils.encodeAsPNG(chart.createBufferedImage(WIDTH, HEIGHT));
+        byte[] png = ChartUtils.encodeAsPNG(chart.createBufferedImage(width, height));
         return "data:image/png;base64," + Base64.getEncoder().encodeToString(png);
     }
 }

@@ -6,6 +6,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
+import org.winnow.scorer.model.FrozenModel;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -15,8 +16,9 @@ import picocli.CommandLine.Spec;
 /** {@code winnow report}: one self-contained HTML page of a scan's result. */
 @Command(name = "report", mixinStandardHelpOptions = true,
         description = {"Write one self-contained HTML file (pictures inline, nothing fetched from a network) that",
-            "shows a scan's result: run summary, rejection funnel, novelty and confidence distributions and a",
-            "sortable table of the most novel survivors."})
+            "shows a scan's result: run summary, rejection funnel, novelty and confidence distributions, a",
+            "sortable table of the most novel survivors and, with --model, an embedding map of the reference and",
+            "the survivors and the clusters of novel survivors."})
 public final class ReportCommand implements Callable<Integer> {
     /** Exit code for bad input or options, as every winnow command. */
     private static final int EXIT_BAD_INPUT = 2;
@@ -30,6 +32,15 @@ public final class ReportCommand implements Callable<Integer> {
     @Option(names = "--out", required = true, paramLabel = "report.html", description = "The HTML file to write.")
     Path out;
 
+    @Option(names = "--model", paramLabel = "M.wnm",
+            description = {"The run's frozen model: adds the embedding map and the clusters of novel survivors."})
+    Path model;
+
+    @Option(names = "--max-map-points", defaultValue = "20000", paramLabel = "N",
+            description = "Largest number of novel survivors, and of other survivors, embedded for the map and the "
+                    + "clusters (an even sample beyond; default ${DEFAULT-VALUE}).")
+    int maxMapPoints;
+
     @Option(names = "--top", defaultValue = "500", paramLabel = "N",
             description = "Rows in the survivors table, most novel first (default ${DEFAULT-VALUE}).")
     int top;
@@ -40,14 +51,36 @@ public final class ReportCommand implements Callable<Integer> {
         if (top < 1) {
             return fail(err, "--top " + top + ": must be at least 1");
         }
+        if (maxMapPoints < 1) {
+            return fail(err, "--max-map-points " + maxMapPoints + ": must be at least 1");
+        }
         ScanResult scan;
         try {
             scan = ScanResult.read(dir);
         } catch (ScanResult.BadScanDir e) {
             return fail(err, e.getMessage());
         }
+        ModelView view = null;
+        if (model != null) {
+            FrozenModel frozen;
+            try {
+                frozen = FrozenModel.load(model);
+            } catch (IOException e) {
+                return fail(err, e.getMessage());
+            }
+            try {
+                view = ModelView.build(scan, frozen, maxMapPoints);
+            } catch (IllegalArgumentException e) {
+                return fail(err, model + ": " + e.getMessage());
+            }
+            if (!view.sameModel()) {
+                err.println("winnow report: warning: " + model + " has checksum " + frozen.checksum()
+                        + " but the run was scored with " + scan.manifest().modelChecksum());
+                err.flush();
+            }
+        }
         try {
-            String html = ReportHtml.render(scan, "winnow scan " + scan.manifest().runId(), top);
+            String html = ReportHtml.render(scan, view, "winnow scan " + scan.manifest().runId(), top);
             Path parent = out.toAbsolutePath().getParent();
             if (parent != null) {
                 Files.createDirectories(parent);

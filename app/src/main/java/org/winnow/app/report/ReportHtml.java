@@ -14,12 +14,13 @@ import org.winnow.sink.SurvivorLine;
  */
 final class ReportHtml {
     /** The section ids, in page order; tests and readers find sections by them. */
-    static final List<String> SECTIONS = List.of("summary", "funnel", "novelty", "confidence", "survivors");
+    static final List<String> SECTIONS =
+            List.of("summary", "funnel", "map", "novelty", "clusters", "confidence", "survivors");
 
     private static final String STYLE = "body{font-family:sans-serif;max-width:1000px;margin:2em auto;color:#222}"
             + "table{border-collapse:collapse}td,th{border:1px solid #ccc;padding:2px 6px;font-size:13px}"
             + "th{background:#eee;cursor:pointer}td.num{text-align:right}img{max-width:100%}"
-            + "code{font-size:12px}";
+            + "code{font-size:12px}.warning{color:#a00}.needs-model{color:#666;font-style:italic}";
 
     // Sorts by the clicked column; numeric when both cells parse as numbers, text otherwise.
     private static final String SORTER = "document.querySelectorAll('table.sortable').forEach(function(t){"
@@ -33,8 +34,11 @@ final class ReportHtml {
 
     private ReportHtml() {}
 
-    /** The page; {@code top} caps the survivors table (the most novel first). */
-    static String render(ScanResult scan, String title, int top) throws IOException {
+    /**
+     * The page; {@code view} (null without a model) fills the map and the clusters, {@code top} caps the
+     * survivors table (the most novel first).
+     */
+    static String render(ScanResult scan, ModelView view, String title, int top) throws IOException {
         Manifest m = scan.manifest();
         StringBuilder h = new StringBuilder(1 << 16);
         h.append("<!DOCTYPE html>\n<html lang=\"en\"><head><meta charset=\"utf-8\"><title>")
@@ -47,7 +51,9 @@ final class ReportHtml {
         h.append("</section>\n");
         double[] novelty = scan.survivors().stream().mapToDouble(SurvivorLine::novelty).toArray();
         double[] confidence = scan.survivors().stream().mapToDouble(SurvivorLine::confidence).toArray();
+        map(h, view, m);
         histogramSection(h, "novelty", "Novelty of the survivors", novelty, "novelty");
+        clusters(h, view, m);
         histogramSection(h, "confidence", "Confidence of the h11 predictions", confidence, "h11 confidence");
         survivors(h, scan.survivors(), top);
         h.append("<script>").append(SORTER).append("</script>\n</body></html>\n");
@@ -84,6 +90,97 @@ final class ReportHtml {
             row(h, "rate", String.format(Locale.ROOT, "%.1f candidates/s (last session)", t.candidatesPerSecond()));
         }
         h.append("</table>\n</section>\n");
+    }
+
+    private static void map(StringBuilder h, ModelView v, Manifest m) throws IOException {
+        section(h, "map", "Embedding map");
+        if (v == null) {
+            needsModel(h, m);
+        } else {
+            modelNote(h, v, m);
+            Projection p = v.projection();
+            h.append(String.format(Locale.ROOT, "<p>The model's %d reference examples (coloured by their true h11) and "
+                    + "%s survivors (coloured by their predicted h11), projected on the reference's two principal axes "
+                    + "(variance %.4g and %.4g). Novel survivors (novelty at least %s, %s) are triangles, %s; cluster "
+                    + "medoids are diamonds labelled as in the clusters section.</p>%n", v.reference().size(),
+                    drawn(v.others().size() + v.novel().size(), v.survivorsTotal()), p.variance()[0], p.variance()[1],
+                    fmt(v.guard()), v.guardFromRules() ? "the run's guard" : "the default guard; the manifest records none",
+                    drawn(v.novel().size(), v.novelTotal())));
+            image(h, ReportCharts.embeddingMap(v), "embedding map");
+        }
+        h.append("</section>\n");
+    }
+
+    private static void clusters(StringBuilder h, ModelView v, Manifest m) {
+        section(h, "clusters", "Clusters of novel survivors");
+        if (v == null) {
+            needsModel(h, m);
+        } else if (v.clusters() == null) {
+            h.append("<p>The reference has fewer than two distinct embeddings, so it gives no spacing to derive a "
+                    + "cluster radius from; no clusters computed.</p>\n");
+        } else {
+            NoveltyClusters c = v.clusters();
+            h.append(String.format(Locale.ROOT, "<p>DBSCAN on the embeddings of %s novel survivors (novelty at least "
+                    + "%s), Euclidean distance. Radius %.4g: the median distance from a reference example to its "
+                    + "nearest other reference example. A core point has at least %d others within the radius, so a "
+                    + "cluster has at least %d members. %d clusters hold %d novel survivors; %d are isolated.</p>%n",
+                    drawn(v.novel().size(), v.novelTotal()), fmt(v.guard()), c.radius(), NoveltyClusters.MIN_NEIGHBOURS,
+                    NoveltyClusters.MIN_NEIGHBOURS + 1, c.clusters().size(), c.clustered(), c.noise()));
+            if (!c.clusters().isEmpty()) {
+                h.append("<p>Each cluster is represented by its medoid, the member with the least summed distance to "
+                        + "the others.</p>\n<table class=\"sortable\"><thead><tr><th>cluster</th><th>size</th>"
+                        + "<th>medoid</th><th>chi</th><th>h11 (predicted)</th><th>novelty</th>"
+                        + "<th>predicted h11 of members</th><th>mean novelty</th><th>nearest reference</th>"
+                        + "</tr></thead><tbody>\n");
+                int k = 1;
+                for (NoveltyClusters.Group g : c.clusters()) {
+                    SurvivorLine s = v.novelLines().get(g.medoid());
+                    int lo = Integer.MAX_VALUE;
+                    int hi = Integer.MIN_VALUE;
+                    double sum = 0;
+                    for (int i : g.members()) {
+                        SurvivorLine x = v.novelLines().get(i);
+                        lo = Math.min(lo, x.h11());
+                        hi = Math.max(hi, x.h11());
+                        sum += x.novelty();
+                    }
+                    h.append("<tr><td>C").append(k++).append("</td>");
+                    num(h, Integer.toString(g.size()));
+                    h.append("<td><code>").append(esc(s.config())).append("</code></td>");
+                    num(h, Long.toString(s.chi()));
+                    num(h, Integer.toString(s.h11()));
+                    num(h, String.format(Locale.ROOT, "%.4f", s.novelty()));
+                    num(h, lo == hi ? Integer.toString(lo) : lo + ".." + hi);
+                    num(h, String.format(Locale.ROOT, "%.4f", sum / g.size()));
+                    h.append("<td><code>").append(esc(s.nearestReference().isEmpty() ? SurvivorLine.UNDETERMINED
+                            : s.nearestReference())).append("</code></td></tr>\n");
+                }
+                h.append("</tbody></table>\n");
+            }
+        }
+        h.append("</section>\n");
+    }
+
+    private static void needsModel(StringBuilder h, Manifest m) {
+        h.append("<p class=\"needs-model\">This section needs the model: run <code>winnow report DIR --model M.wnm "
+                + "--out report.html</code> with the run's model (checksum <code>").append(esc(m.modelChecksum()))
+                .append("</code>).</p>\n");
+    }
+
+    private static void modelNote(StringBuilder h, ModelView v, Manifest m) {
+        if (!v.sameModel()) {
+            h.append("<p class=\"warning\"><b>Another model.</b> The embeddings come from model <code>")
+                    .append(esc(v.model())).append("</code>, but the run was scored with <code>")
+                    .append(esc(m.modelChecksum())).append("</code>; predictions and novelty are the run's.</p>\n");
+        }
+    }
+
+    private static String drawn(int shown, int total) {
+        return shown == total ? Integer.toString(total) : shown + " (an even sample) of " + total;
+    }
+
+    private static String fmt(double x) {
+        return java.math.BigDecimal.valueOf(x).stripTrailingZeros().toPlainString();
     }
 
     private static void histogramSection(StringBuilder h, String id, String heading, double[] values, String axis)
