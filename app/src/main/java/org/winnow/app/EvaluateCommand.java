@@ -10,6 +10,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Set;
 import java.util.concurrent.Callable;
+import org.winnow.app.report.EvaluationFile;
 import org.winnow.scorer.model.Evaluation;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.model.LabelledExample;
@@ -22,8 +23,8 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(name = "evaluate", mixinStandardHelpOptions = true,
         description = {"Evaluate a frozen model on the exact rows of a reference file that are not in the model's",
             "own reference set: accuracy, per-class recall and precision, confusion matrix, reliability,",
-            "and with --holdout-class the novelty AUROC of that class; writes two PNGs; ends with a",
-            "name: value summary."})
+            "and with --holdout-class the novelty AUROC of that class; writes two PNGs (and with --out a",
+            "JSON file for winnow report); ends with a name: value summary."})
 final class EvaluateCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -39,8 +40,14 @@ final class EvaluateCommand implements Callable<Integer> {
     String holdout;
 
     @Option(names = "--plots", paramLabel = "DIR",
-            description = "Directory for <model>-embedding.png and <model>-confusion.png (default: beside the model).")
+            description = "Directory for <model>-embedding.png and <model>-confusion.png (default: the --out "
+                    + "directory, else beside the model).")
     Path plots;
+
+    @Option(names = "--out", paramLabel = "DIR",
+            description = {"Also write the results machine-readably to DIR/" + EvaluationFile.FILE
+                + " (the pictures go there too unless --plots says otherwise); `winnow report DIR` renders it."})
+    Path outDir;
 
     @Option(names = "--max-plot-points", defaultValue = "20000", paramLabel = "N",
             description = "Largest number of points drawn in the embedding picture (default ${DEFAULT-VALUE}).")
@@ -98,7 +105,7 @@ final class EvaluateCommand implements Callable<Integer> {
                     + " exact rows contradict their chi; first: " + loaded.firstInconsistent());
         }
         EvaluationText.tables(ev, out);
-        Path dir = plots != null ? plots : modelPath.toAbsolutePath().getParent();
+        Path dir = plots != null ? plots : outDir != null ? outDir : modelPath.toAbsolutePath().getParent();
         String stem = modelPath.getFileName().toString().replaceFirst("\\.wnm$", "");
         Path embeddingPng = dir.resolve(stem + "-embedding.png");
         Path confusionPng = dir.resolve(stem + "-confusion.png");
@@ -121,6 +128,16 @@ final class EvaluateCommand implements Callable<Integer> {
             return fail(err, dir + ": cannot write the plots (" + e.getMessage() + ")");
         }
         out.println("plots: " + embeddingPng + ", " + confusionPng);
+        if (outDir != null) {
+            EvaluationFile.Context context = new EvaluationFile.Context(modelPath, model.checksum(),
+                    model.reference().size(), reference, loaded.examples().size() - test.size(), loaded.bounded(),
+                    EvaluationText.summaryText(ev).lines().toList(), embeddingPng, confusionPng, seconds);
+            try {
+                out.println("results: " + EvaluationFile.of(ev, context, outDir).write(outDir));
+            } catch (IOException e) {
+                return fail(err, outDir + ": cannot write " + EvaluationFile.FILE + " (" + e.getMessage() + ")");
+            }
+        }
         out.printf(Locale.ROOT, "scoring seconds: %.2f%n", seconds);
         EvaluationText.summary(ev, out);
         out.flush();

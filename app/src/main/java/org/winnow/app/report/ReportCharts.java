@@ -18,16 +18,21 @@ import org.jfree.chart.JFreeChart;
 import org.jfree.chart.annotations.XYTextAnnotation;
 import org.jfree.chart.axis.NumberAxis;
 import org.jfree.chart.plot.CategoryPlot;
+import org.jfree.chart.plot.DatasetRenderingOrder;
 import org.jfree.chart.plot.PlotOrientation;
 import org.jfree.chart.plot.SeriesRenderingOrder;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.LookupPaintScale;
+import org.jfree.chart.renderer.xy.StandardXYBarPainter;
+import org.jfree.chart.renderer.xy.XYBarRenderer;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.title.PaintScaleLegend;
 import org.jfree.chart.ui.RectangleEdge;
 import org.jfree.chart.ui.TextAnchor;
 import org.jfree.data.category.DefaultCategoryDataset;
 import org.jfree.data.statistics.HistogramDataset;
+import org.jfree.data.xy.XYIntervalSeries;
+import org.jfree.data.xy.XYIntervalSeriesCollection;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
 
@@ -142,6 +147,59 @@ final class ReportCharts {
         legend.setMargin(4, 4, 40, 4);
         chart.addSubtitle(legend);
         return dataUri(chart, WIDTH, 720);
+    }
+
+    /**
+     * The reliability diagram: one bar per non-empty confidence bin from its low to its high edge, as
+     * tall as the bin's observed accuracy, a dot at the bin's mean confidence, and the diagonal that a
+     * calibrated model follows.
+     */
+    static String reliability(List<EvaluationFile.Bin> bins) throws IOException {
+        XYIntervalSeries bars = new XYIntervalSeries("observed accuracy");
+        XYSeries dots = new XYSeries("mean confidence of the bin", false, true);
+        for (EvaluationFile.Bin b : bins) {
+            if (b.count() > 0 && b.accuracy() != null && b.meanConfidence() != null) {
+                bars.add((b.low() + b.high()) / 2, b.low(), b.high(), b.accuracy(), 0, b.accuracy());
+                dots.add(b.meanConfidence(), b.accuracy());
+            }
+        }
+        XYIntervalSeriesCollection barData = new XYIntervalSeriesCollection();
+        barData.addSeries(bars);
+        XYSeries diagonal = new XYSeries("calibrated (accuracy = confidence)");
+        diagonal.add(0, 0);
+        diagonal.add(1, 1);
+        XYSeriesCollection lines = new XYSeriesCollection();
+        lines.addSeries(diagonal);
+        lines.addSeries(dots);
+        NumberAxis x = new NumberAxis("stated confidence");
+        x.setRange(0, 1.01);
+        NumberAxis y = new NumberAxis("observed accuracy");
+        y.setRange(0, 1.02);
+        XYBarRenderer barRenderer = new XYBarRenderer();
+        barRenderer.setBarPainter(new StandardXYBarPainter());
+        barRenderer.setShadowVisible(false);
+        barRenderer.setDrawBarOutline(true);
+        barRenderer.setSeriesPaint(0, new Color(0x7FB3D5));
+        barRenderer.setSeriesOutlinePaint(0, new Color(0x2471A3));
+        XYPlot plot = new XYPlot(barData, x, y, barRenderer);
+        XYLineAndShapeRenderer lineRenderer = new XYLineAndShapeRenderer();
+        lineRenderer.setSeriesLinesVisible(0, true);
+        lineRenderer.setSeriesShapesVisible(0, false);
+        lineRenderer.setSeriesPaint(0, Color.DARK_GRAY);
+        lineRenderer.setSeriesStroke(0, new BasicStroke(1.2f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f,
+                new float[] {6f, 4f}, 0f));
+        lineRenderer.setSeriesLinesVisible(1, false);
+        lineRenderer.setSeriesShapesVisible(1, true);
+        lineRenderer.setSeriesPaint(1, new Color(0xC0392B));
+        lineRenderer.setSeriesShape(1, new Ellipse2D.Double(-4, -4, 8, 8));
+        plot.setDataset(1, lines);
+        plot.setRenderer(1, lineRenderer);
+        plot.setDatasetRenderingOrder(DatasetRenderingOrder.FORWARD);
+        plot.setBackgroundPaint(Color.WHITE);
+        plot.setDomainGridlinePaint(Color.LIGHT_GRAY);
+        plot.setRangeGridlinePaint(Color.LIGHT_GRAY);
+        JFreeChart chart = new JFreeChart("reliability", JFreeChart.DEFAULT_TITLE_FONT, plot, true);
+        return dataUri(chart, 700, 600);
     }
 
     /** Hues from blue (low h11) through green to red (high), one step per h11 value. */

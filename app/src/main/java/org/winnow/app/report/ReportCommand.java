@@ -7,6 +7,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import org.winnow.scorer.model.FrozenModel;
+import org.winnow.sink.ScanFiles;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -18,7 +19,8 @@ import picocli.CommandLine.Spec;
         description = {"Write one self-contained HTML file (pictures inline, nothing fetched from a network) that",
             "shows a scan's result: run summary, rejection funnel, novelty and confidence distributions, a",
             "sortable table of the most novel survivors and, with --model, an embedding map of the reference and",
-            "the survivors and the clusters of novel survivors."})
+            "the survivors and the clusters of novel survivors. On an evaluation's directory: summary, per-class",
+            "recall and precision, confusion matrix, reliability diagram and embedding picture."})
 public final class ReportCommand implements Callable<Integer> {
     /** Exit code for bad input or options, as every winnow command. */
     private static final int EXIT_BAD_INPUT = 2;
@@ -26,7 +28,8 @@ public final class ReportCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Parameters(index = "0", paramLabel = "DIR", description = "The --out directory of a scan.")
+    @Parameters(index = "0", paramLabel = "DIR",
+            description = "The --out directory of a scan, or of `winnow evaluate` (holding " + EvaluationFile.FILE + ").")
     Path dir;
 
     @Option(names = "--out", required = true, paramLabel = "report.html", description = "The HTML file to write.")
@@ -54,6 +57,17 @@ public final class ReportCommand implements Callable<Integer> {
         if (maxMapPoints < 1) {
             return fail(err, "--max-map-points " + maxMapPoints + ": must be at least 1");
         }
+        Path evaluation = dir.resolve(EvaluationFile.FILE);
+        if (Files.isRegularFile(evaluation)) {
+            if (Files.exists(dir.resolve(ScanFiles.MANIFEST))) {
+                return fail(err, dir + ": holds both " + ScanFiles.MANIFEST + " and " + EvaluationFile.FILE
+                        + "; give a scan's or an evaluation's own directory");
+            }
+            if (model != null) {
+                return fail(err, "--model applies to a scan directory; " + evaluation + " names its own model");
+            }
+            return evaluationReport(evaluation, err);
+        }
         ScanResult scan;
         try {
             scan = ScanResult.read(dir);
@@ -80,12 +94,7 @@ public final class ReportCommand implements Callable<Integer> {
             }
         }
         try {
-            String html = ReportHtml.render(scan, view, "winnow scan " + scan.manifest().runId(), top);
-            Path parent = out.toAbsolutePath().getParent();
-            if (parent != null) {
-                Files.createDirectories(parent);
-            }
-            Files.writeString(out, html, StandardCharsets.UTF_8);
+            write(ReportHtml.render(scan, view, "winnow scan " + scan.manifest().runId(), top));
         } catch (IOException e) {
             return fail(err, out + ": cannot write the report (" + e.getMessage() + ")");
         }
@@ -93,6 +102,33 @@ public final class ReportCommand implements Callable<Integer> {
         o.println("report: " + out + " (" + scan.survivors().size() + " survivors)");
         o.flush();
         return 0;
+    }
+
+    private int evaluationReport(Path file, PrintWriter err) {
+        EvaluationFile e;
+        try {
+            e = EvaluationFile.read(file);
+        } catch (IOException ex) {
+            return fail(err, ex.getMessage());
+        }
+        try {
+            write(EvaluationHtml.render(e, dir, "winnow evaluate " + Path.of(e.model()).getFileName() + " on "
+                    + Path.of(e.testFile()).getFileName()));
+        } catch (IOException ex) {
+            return fail(err, out + ": cannot write the report (" + ex.getMessage() + ")");
+        }
+        PrintWriter o = spec.commandLine().getOut();
+        o.println("report: " + out + " (evaluation of " + e.testRows() + " test rows)");
+        o.flush();
+        return 0;
+    }
+
+    private void write(String html) throws IOException {
+        Path parent = out.toAbsolutePath().getParent();
+        if (parent != null) {
+            Files.createDirectories(parent);
+        }
+        Files.writeString(out, html, StandardCharsets.UTF_8);
     }
 
     private static int fail(PrintWriter err, String message) {

@@ -17,13 +17,13 @@ final class ReportHtml {
     static final List<String> SECTIONS =
             List.of("summary", "funnel", "map", "novelty", "clusters", "confidence", "survivors");
 
-    private static final String STYLE = "body{font-family:sans-serif;max-width:1000px;margin:2em auto;color:#222}"
+    static final String STYLE = "body{font-family:sans-serif;max-width:1000px;margin:2em auto;color:#222}"
             + "table{border-collapse:collapse}td,th{border:1px solid #ccc;padding:2px 6px;font-size:13px}"
             + "th{background:#eee;cursor:pointer}td.num{text-align:right}img{max-width:100%}"
             + "code{font-size:12px}.warning{color:#a00}.needs-model{color:#666;font-style:italic}";
 
     // Sorts by the clicked column; numeric when both cells parse as numbers, text otherwise.
-    private static final String SORTER = "document.querySelectorAll('table.sortable').forEach(function(t){"
+    static final String SORTER = "document.querySelectorAll('table.sortable').forEach(function(t){"
             + "t.querySelectorAll('th').forEach(function(th,col){th.addEventListener('click',function(){"
             + "var body=t.tBodies[0];var rows=Array.prototype.slice.call(body.rows);"
             + "var dir=th.dataset.dir==='asc'?-1:1;th.dataset.dir=dir===1?'asc':'desc';"
@@ -222,19 +222,19 @@ final class ReportHtml {
         h.append("</tbody></table>\n</section>\n");
     }
 
-    private static void section(StringBuilder h, String id, String heading) {
+    static void section(StringBuilder h, String id, String heading) {
         h.append("<section id=\"").append(id).append("\"><h2>").append(esc(heading)).append("</h2>\n");
     }
 
-    private static void row(StringBuilder h, String name, String value) {
+    static void row(StringBuilder h, String name, String value) {
         h.append("<tr><th>").append(esc(name)).append("</th><td>").append(esc(value)).append("</td></tr>\n");
     }
 
-    private static void num(StringBuilder h, String value) {
+    static void num(StringBuilder h, String value) {
         h.append("<td class=\"num\">").append(esc(value)).append("</td>");
     }
 
-    private static void image(StringBuilder h, String dataUri, String alt) {
+    static void image(StringBuilder h, String dataUri, String alt) {
         h.append("<img alt=\"").append(esc(alt)).append("\" src=\"").append(dataUri).append("\">\n");
     }
 
