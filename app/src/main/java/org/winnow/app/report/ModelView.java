@@ -4,6 +4,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
+import org.winnow.pipeline.Reason;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.model.ReferenceSet;
 import org.winnow.scorer.rules.KeepRules;
@@ -27,11 +28,12 @@ import org.winnow.sink.SurvivorLine;
  * @param novelLines     the survivor lines of {@code novel}, same order
  * @param survivorsTotal survivors in the scan
  * @param novelTotal     novel survivors in the scan (more than {@code novel.size()} when capped)
+ * @param keptAsNovel    of those, the ones kept only because they are novel (the others are in range or unsure)
  * @param clusters       clusters of {@code novel}, or null when the reference has no spacing to derive a radius from
  */
 record ModelView(String model, boolean sameModel, double guard, boolean guardFromRules, Projection projection,
         List<Point> reference, List<Point> others, List<Point> novel, List<SurvivorLine> novelLines,
-        int survivorsTotal, int novelTotal, NoveltyClusters clusters) {
+        int survivorsTotal, int novelTotal, long keptAsNovel, NoveltyClusters clusters) {
 
     /** One point of the map: its coordinates on the two axes and the h11 that colours it. */
     record Point(double x, double y, int h11) {}
@@ -89,7 +91,8 @@ record ModelView(String model, boolean sameModel, double guard, boolean guardFro
         NoveltyClusters clusters = Double.isNaN(radius) ? null : NoveltyClusters.find(novelEmb, radius);
         return new ModelView(model.checksum(), model.checksum().equals(m.modelChecksum()), guard, fromRules, p,
                 List.copyOf(refPoints), List.copyOf(others), List.copyOf(novel), List.copyOf(novelLines),
-                scan.survivors().size(), novelAll.size(), clusters);
+                scan.survivors().size(), novelAll.size(),
+                novelAll.stream().filter(s -> s.keptBecause() == Reason.KEPT_AS_NOVEL).count(), clusters);
     }
 
     private static double[] embed(FrozenModel model, SurvivorLine s) {

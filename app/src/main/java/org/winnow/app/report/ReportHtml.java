@@ -101,11 +101,12 @@ final class ReportHtml {
             Projection p = v.projection();
             h.append(String.format(Locale.ROOT, "<p>The model's %d reference examples (coloured by their true h11) and "
                     + "%s survivors (coloured by their predicted h11), projected on the reference's two principal axes "
-                    + "(variance %.4g and %.4g). Novel survivors (novelty at least %s, %s) are triangles, %s; cluster "
-                    + "medoids are diamonds labelled as in the clusters section.</p>%n", v.reference().size(),
+                    + "(variance %.4g and %.4g). Novel survivors (novelty at least %s, %s) are triangles, %s (%d of them "
+                    + "kept only because they are novel; the others are in range or not confidently out of it); "
+                    + "cluster medoids are diamonds labelled as in the clusters section.</p>%n", v.reference().size(),
                     drawn(v.others().size() + v.novel().size(), v.survivorsTotal()), p.variance()[0], p.variance()[1],
                     fmt(v.guard()), v.guardFromRules() ? "the run's guard" : "the default guard; the manifest records none",
-                    drawn(v.novel().size(), v.novelTotal())));
+                    drawn(v.novel().size(), v.novelTotal()), v.keptAsNovel()));
             image(h, ReportCharts.embeddingMap(v), "embedding map");
         }
         h.append("</section>\n");

@@ -25,7 +25,34 @@ final class DemoRun {
     static final Path DATA = Path.of("..", "demo-data");
     static final Path MODEL = DATA.resolve("threefolds-1pct.wnm");
 
+    /** One run per test JVM, shared by the test classes that read it. */
+    record Outputs(Path sample, Path scan, Path evaluation) {}
+
+    private static Outputs shared;
+
     private DemoRun() {}
+
+    /**
+     * Every tenth configuration of the demo space scanned and evaluated, once per JVM, in a temporary
+     * directory removed when the JVM exits.
+     */
+    static synchronized Outputs shared() throws IOException {
+        if (shared == null) {
+            Path dir = Files.createTempDirectory("winnow-demo-run");
+            Runtime.getRuntime().addShutdownHook(new Thread(() -> delete(dir)));
+            Path sample = sample(dir, 10);
+            shared = new Outputs(sample, scan(dir, sample), evaluate(dir, sample));
+        }
+        return shared;
+    }
+
+    private static void delete(Path dir) {
+        try (var walk = Files.walk(dir)) {
+            walk.sorted(java.util.Comparator.reverseOrder()).forEach(p -> p.toFile().delete());
+        } catch (IOException e) {
+            // Best effort: the directory is under the system's temporary folder.
+        }
+    }
 
     static Run winnow(String... args) {
         StringWriter out = new StringWriter();
@@ -38,7 +65,7 @@ final class DemoRun {
     }
 
     /** Every {@code stride}-th data row of the demo's labelled space, with the header. */
-    static Path sample(Path dir, int stride) throws IOException {
+    private static Path sample(Path dir, int stride) throws IOException {
         assertTrue(Files.isRegularFile(MODEL), "the shipped demo model at " + MODEL.toAbsolutePath());
         List<String> lines = Files.readAllLines(DATA.resolve("threefolds-exact.tsv"));
         List<String> kept = new ArrayList<>();
@@ -54,9 +81,10 @@ final class DemoRun {
     }
 
     /** Scans the sample's configurations with the demo model and rules into {@code dir/scan}. */
-    static Path scan(Path dir, Path sample) throws IOException {
+    private static Path scan(Path dir, Path sample) throws IOException {
         List<String> configs = new ArrayList<>();
-        for (String line : Files.readAllLines(sample).subList(1, Files.readAllLines(sample).size())) {
+        List<String> rows = Files.readAllLines(sample);
+        for (String line : rows.subList(1, rows.size())) {
             configs.add(line.substring(0, line.indexOf('\t')));
         }
         Path input = dir.resolve("candidates.txt");
@@ -69,7 +97,7 @@ final class DemoRun {
     }
 
     /** Evaluates the demo model on the sample into {@code dir/eval}. */
-    static Path evaluate(Path dir, Path sample) {
+    private static Path evaluate(Path dir, Path sample) {
         Path out = dir.resolve("eval");
         Run r = winnow("evaluate", "--model", MODEL.toString(), "--reference", sample.toString(), "--out",
                 out.toString());

@@ -27,15 +27,14 @@ import org.winnow.scorer.model.ReferenceTsv;
 
 /** {@code winnow evaluate --out} writes its results as JSON, and {@code winnow report} renders them. */
 class EvaluationReportTest {
-    @TempDir
-    static Path shared;
     static Path sample;
     static Path evalDir;
 
     @BeforeAll
     static void evaluate() throws Exception {
-        sample = DemoRun.sample(shared, 20);
-        evalDir = DemoRun.evaluate(shared, sample);
+        DemoRun.Outputs run = DemoRun.shared();
+        sample = run.sample();
+        evalDir = run.evaluation();
     }
 
     @Test

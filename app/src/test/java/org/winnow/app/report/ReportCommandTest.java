@@ -20,6 +20,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.app.WinnowCli;
 import org.winnow.app.scan.ScanFixtures;
+import org.winnow.pipeline.Reason;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.sink.Manifest;
 import org.winnow.sink.ScanFiles;
@@ -104,7 +105,9 @@ class ReportCommandTest {
         FrozenModel fm = FrozenModel.load(model);
         assertTrue(map.contains("The model's " + fm.reference().size() + " reference examples"), map);
         assertTrue(map.contains(survivors.size() + " survivors (coloured by their predicted h11)"), map);
-        assertTrue(map.contains("(novelty at least 0.9, the run's guard) are triangles, " + novel.size() + ";"), map);
+        long keptAsNovel = novel.stream().filter(s -> s.keptBecause() == Reason.KEPT_AS_NOVEL).count();
+        assertTrue(map.contains("(novelty at least 0.9, the run's guard) are triangles, " + novel.size() + " ("
+                + keptAsNovel + " of them kept only because they are novel"), map);
 
         String clusters = section(page, "clusters");
         Matcher counts = Pattern.compile("(\\d+) clusters hold (\\d+) novel survivors; (\\d+) are isolated")
