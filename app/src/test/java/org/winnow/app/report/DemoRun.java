@@ -33,14 +33,14 @@ final class DemoRun {
     private DemoRun() {}
 
     /**
-     * Every tenth configuration of the demo space scanned and evaluated, once per JVM, in a temporary
+     * Every twentieth configuration of the demo space scanned and evaluated, once per JVM, in a temporary
      * directory removed when the JVM exits.
      */
     static synchronized Outputs shared() throws IOException {
         if (shared == null) {
             Path dir = Files.createTempDirectory("winnow-demo-run");
             Runtime.getRuntime().addShutdownHook(new Thread(() -> delete(dir)));
-            Path sample = sample(dir, 10);
+            Path sample = sample(dir, 20);
             shared = new Outputs(sample, scan(dir, sample), evaluate(dir, sample));
         }
         return shared;

@@ -128,6 +128,14 @@ class EvaluationReportTest {
         assertEquals(2, b.exit());
         assertTrue(b.err().startsWith("winnow report: " + broken.resolve(EvaluationFile.FILE) + ": "), b.err());
         assertEquals(1, b.err().strip().lines().count(), b.err());
-        assertFalse(Files.exists(dir.resolve("x.html")) || Files.exists(dir.resolve("y.html")));
+        Path both = dir.resolve("both");
+        Files.createDirectories(both);
+        Files.copy(evalDir.resolve(EvaluationFile.FILE), both.resolve(EvaluationFile.FILE));
+        Files.writeString(both.resolve(org.winnow.sink.ScanFiles.MANIFEST), "{}");
+        DemoRun.Run t = DemoRun.winnow("report", both.toString(), "--out", dir.resolve("z.html").toString());
+        assertEquals(2, t.exit());
+        assertTrue(t.err().startsWith("winnow report: " + both + ": holds both "), t.err());
+        assertFalse(Files.exists(dir.resolve("x.html")) || Files.exists(dir.resolve("y.html"))
+                || Files.exists(dir.resolve("z.html")));
     }
 }

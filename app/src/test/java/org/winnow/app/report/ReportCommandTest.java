@@ -162,6 +162,11 @@ class ReportCommandTest {
         assertTrue(r.err().contains("none.wnm"), r.err());
         assertEquals(1, r.err().strip().lines().count(), r.err());
         assertFalse(Files.exists(dir.resolve("x.html")));
+        Run cap = winnow("report", scanDir.toString(), "--model", model.toString(), "--max-map-points", "0", "--out",
+                dir.resolve("x.html").toString());
+        assertEquals(2, cap.exit());
+        assertEquals("winnow report: --max-map-points 0: must be at least 1", cap.err().strip());
+        assertFalse(Files.exists(dir.resolve("x.html")));
     }
 
     /** The page between {@code <section id="id">} and its end. */
