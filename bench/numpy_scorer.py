@@ -1,10 +1,11 @@
 #!/usr/bin/env python3
 """Reference scorer in numpy: what a researcher would write instead of winnow's scorer.
 
-Reads a model exported by `winnow export-weights` (format winnow-weights v1, see bench/README.md)
+Reads a model exported by `winnow export-weights` (format winnow-weights v2, see bench/README.md)
 and a bench candidate file (one `configuration<TAB>chi` a line), and for every candidate computes
-the same features, the same forward pass and the same distance-weighted vote of the k nearest
-reference embeddings (brute force) as winnow's Predictor. Candidates are read in blocks and
+the same features (the first-page h11 estimate included, per candidate in plain Python), the same
+forward pass and the same distance-weighted vote of the k nearest reference embeddings (brute
+force) as winnow's Predictor. Candidates are read in blocks and
 grouped by shape (rows m, columns K), so every layer is one numpy call per group.
 
 Usage:
@@ -30,8 +31,8 @@ FORMAT = "winnow-weights"
 def load_model(path):
     with open(path, encoding="utf-8") as f:
         w = json.load(f)
-    if w.get("format") != FORMAT or w.get("version") != 1:
-        sys.exit(f"numpy_scorer: {path}: not a {FORMAT} v1 file")
+    if w.get("format") != FORMAT or w.get("version") != 2:
+        sys.exit(f"numpy_scorer: {path}: not a {FORMAT} v2 file")
     arr = lambda x: np.asarray(x, dtype=np.float64)
     layers = w["layers"]
     model = {
@@ -47,10 +48,29 @@ def load_model(path):
         "floor": float(w["vote"]["distance_floor"]),
         "classes": np.asarray(w["vote"]["classes"], dtype=np.int64),
         "loo": arr(w["vote"]["loo_distances"]),
+        "tail_scale": float(w["vote"]["tail_scale"]),
+        "tail_threshold": float(w["vote"]["tail_threshold"]),
+        "anchored": bool(w["architecture"]["anchored"]),
+        "anchor_scale": float(w["architecture"]["anchor_scale"]),
         "ref": arr(w["reference"]["embeddings"]),
     }
     h11 = np.asarray(w["reference"]["h11"], dtype=np.int64)
-    model["ref_class"] = np.searchsorted(model["classes"], h11)
+    estimate = np.zeros(len(h11), dtype=np.int64)
+    if model["anchored"]:
+        for i, text in enumerate(w["reference"]["configs"]):
+            n, q, _ = parse(text + "\t0")
+            estimate[i] = h11_estimate(n, q)[0]
+        exported = np.asarray(w["reference"]["h11_estimate"], dtype=np.int64)
+        if not np.array_equal(estimate, exported):
+            sys.exit(f"numpy_scorer: {path}: the h11 estimate disagrees with the exported one")
+    # What each reference point votes for: its correction to the estimate (or h11 when unanchored).
+    residual = h11 - estimate
+    model["residuals"] = np.unique(residual)
+    model["ref_class"] = np.searchsorted(model["residuals"], residual)
+    # Equal weights go to the correction nearest zero, then the smaller one.
+    pref = sorted(range(len(model["residuals"])), key=lambda c: (abs(model["residuals"][c]), model["residuals"][c]))
+    model["preference"] = np.empty(len(pref), dtype=np.int64)
+    model["preference"][pref] = np.arange(len(pref))
     model["ref_sq"] = (model["ref"] * model["ref"]).sum(1)
     return model
 
@@ -66,6 +86,105 @@ def parse(line):
     return ns, qs, int(chi)
 
 
+def h11_estimate(n, q):
+    """First-page h11 estimate of a Calabi-Yau configuration, as winnow's H11Estimator (docs/model.md).
+
+    m + eulerOne + max(0, conormalTwo - eulerTwo) with eulerOne/eulerTwo = sum_i (n_i+1) E1 h^1/h^2 of
+    O_X(-J_i) and conormalTwo = sum_j E1 h^2 of O_X(-q_j); a depth-first search over column subsets S
+    with the same cut as winnow's (rows holding both an included and an excluded column are stuck).
+    """
+    m, k = len(n), len(q[0])
+    sums = [0] * m
+    excl = [0] * m
+    acc = [0, 0, 0]  # eulerOne, eulerTwo, conormalTwo
+
+    def binom(top, bottom):
+        r = 1
+        for i in range(1, bottom + 1):
+            r = r * (top - bottom + i) // i
+        return r
+
+    def full_product(skip):
+        d = 1
+        for r in range(m):
+            if r != skip and sums[r] >= n[r] + 1:
+                d *= binom(sums[r] - 1, n[r])
+        return d
+
+    def can_contribute(j, subset, gap_rows):
+        rows = [r for r in range(m) if gap_rows >> r & 1]
+        if len(rows) == 1 and excl[rows[0]] <= 1:
+            return True
+        for col in range(k):
+            if col < j and not subset >> col & 1:
+                continue
+            if all(q[r][col] >= excl[r] for r in rows):
+                return True
+        return False
+
+    def leaf(subset, size):
+        gap = gap_deg = full_deg = 0
+        for r in range(m):
+            if sums[r] > n[r]:
+                full_deg += n[r]
+            elif sums[r] > 0:
+                gap += 1
+                gap_deg += n[r]
+        if gap == 0:
+            t = full_deg - size
+            if t in (1, 2):
+                for i in range(m):
+                    if sums[i] >= n[i] + 1:
+                        acc[t - 1] += (n[i] + 1) * full_product(i) * binom(sums[i], n[i])
+        elif gap == 1:
+            t = full_deg + gap_deg - size
+            if t in (1, 2):
+                for i in range(m):
+                    if sums[i] == n[i]:
+                        acc[t - 1] += (n[i] + 1) * full_product(i)
+        if gap == 0 and size > 0 and full_deg - size == 1:
+            acc[2] += size * full_product(-1)
+        if size > 0 and full_deg + gap_deg == size + 2:
+            for j in range(k):
+                if subset >> j & 1:
+                    d = 1
+                    for r in range(m):
+                        a = sums[r] + q[r][j]
+                        if a == 0:
+                            continue
+                        if a <= n[r]:
+                            d = 0
+                            break
+                        d *= binom(a - 1, n[r])
+                    acc[2] += d
+
+    def search(j, subset, size, gap_rows):
+        if gap_rows and not can_contribute(j, subset, gap_rows):
+            return
+        if j == k:
+            leaf(subset, size)
+            return
+        out_gap, in_gap = gap_rows, gap_rows
+        for r in range(m):
+            if q[r][j]:
+                if sums[r] > 0:
+                    out_gap |= 1 << r
+                if excl[r] > 0:
+                    in_gap |= 1 << r
+        for r in range(m):
+            excl[r] += q[r][j]
+        search(j + 1, subset, size, out_gap)
+        for r in range(m):
+            excl[r] -= q[r][j]
+            sums[r] += q[r][j]
+        search(j + 1, subset | 1 << j, size + 1, in_gap)
+        for r in range(m):
+            sums[r] -= q[r][j]
+
+    search(0, 0, 0, 0)
+    return m + acc[0] + max(0, acc[2] - acc[1]), acc
+
+
 def relu(x):
     return np.maximum(x, 0.0)
 
@@ -75,8 +194,8 @@ def dense(x, layer):
     return x @ w.T + b
 
 
-def embed(model, n, q, chi):
-    """Embeddings of B candidates of one shape: n (B, m), q (B, m, K), chi (B,)."""
+def embed(model, n, q, chi, estimate, terms):
+    """Embeddings of B candidates of one shape: n (B, m), q (B, m, K), chi (B,), estimates (B,), terms (B, 3)."""
     b, m, k = q.shape
     norm = model["norm"]
     nz = (q != 0)
@@ -85,7 +204,8 @@ def embed(model, n, q, chi):
     xc = np.stack([q.sum(1), nz.sum(1), q.max(1), (q * n[:, :, None]).sum(1)], axis=2).astype(np.float64)
     sum_n = n.sum(1)
     g = np.stack([np.full(b, m), np.full(b, k), chi, nz.sum((1, 2)), big.sum((1, 2)), sum_n,
-                  (n == 1).sum(1), sum_n - k], axis=1).astype(np.float64)
+                  (n == 1).sum(1), sum_n - k, estimate, estimate - m, terms[:, 0],
+                  np.maximum(0, terms[:, 2] - terms[:, 1])], axis=1).astype(np.float64)
     xr = (xr - norm["row_mean"]) * norm["row_scale"]
     xc = (xc - norm["col_mean"]) * norm["col_scale"]
     g = (g - norm["global_mean"]) * norm["global_scale"]
@@ -101,7 +221,10 @@ def embed(model, n, q, chi):
         hr = relu(hr @ r["row_self"].T + ar @ r["row_msg"].T + r["row_bias"])
     z = np.concatenate([hr.sum(1), hr.max(1), hc.sum(1), hc.max(1), g], axis=1)
     u = relu(dense(z, model["read1"]))
-    return dense(u, model["read2"])
+    e = dense(u, model["read2"])
+    if model["anchored"]:
+        e = np.concatenate([e, model["anchor_scale"] * estimate[:, None].astype(np.float64)], axis=1)
+    return e
 
 
 def squared_distances(model, q, search):
@@ -152,14 +275,22 @@ def vote(model, e, search):
     same = cls[:, :, None] == cls[:, None, :]
     class_weight = (w[:, None, :] * same).sum(2)          # weight of each neighbour's class
     best = class_weight.max(1, keepdims=True)
-    winner = np.where(class_weight == best, cls, np.iinfo(np.int64).max).min(1)
+    pref = model["preference"][cls]
+    winner_pref = np.where(class_weight == best, pref, np.iinfo(np.int64).max).min(1)
+    winner = np.argsort(model["preference"])[winner_pref]
     loo = model["loo"]
     if len(loo) == 0:
         novelty = np.ones(len(e))
     else:
-        at_least = len(loo) - np.searchsorted(loo, dist[:, nk - 1], side="left")
+        delta = dist[:, nk - 1]
+        at_least = len(loo) - np.searchsorted(loo, delta, side="left")
         novelty = 1.0 - (1.0 + at_least) / (len(loo) + 1.0)
-    return model["classes"][winner], novelty
+        u, scale = model["tail_threshold"], model["tail_scale"]
+        if scale > 0:
+            above = len(loo) - np.searchsorted(loo, u, side="right")
+            tail = 1.0 - (1.0 + above) / (len(loo) + 1.0) * np.exp(-(delta - u) / scale)
+            novelty = np.where(delta > u, tail, novelty)
+    return model["residuals"][winner], novelty
 
 
 def score_block(model, lines, search):
@@ -167,15 +298,18 @@ def score_block(model, lines, search):
     groups = {}
     for i, line in enumerate(lines):
         n, q, chi = parse(line)
-        groups.setdefault((len(n), len(q[0])), []).append((i, n, q, chi))
+        est, terms = h11_estimate(n, q) if model["anchored"] else (0, [0, 0, 0])
+        groups.setdefault((len(n), len(q[0])), []).append((i, n, q, chi, est, terms))
     out = np.empty(len(lines), dtype=np.int64)
     for members in groups.values():
         order = np.fromiter((t[0] for t in members), dtype=np.int64, count=len(members))
         n = np.array([t[1] for t in members], dtype=np.int64)
         q = np.array([t[2] for t in members], dtype=np.int64)
         chi = np.array([t[3] for t in members], dtype=np.int64)
-        h11, _novelty = vote(model, embed(model, n, q, chi), search)
-        out[order] = h11
+        est = np.array([t[4] for t in members], dtype=np.int64)
+        terms = np.array([t[5] for t in members], dtype=np.int64)
+        correction, _novelty = vote(model, embed(model, n, q, chi, est, terms), search)
+        out[order] = est + correction
     return out
 
 

@@ -58,6 +58,9 @@ final class EvaluationText {
             line(sb, "held-out class", "h11=" + e.holdoutClass());
             line(sb, "held-out examples", Integer.toString(e.holdoutExamples()));
             line(sb, "novelty AUROC", num(e.noveltyAuroc()));
+            double[] h = e.heldOut(DECISIVE_NOVELTY);
+            line(sb, "held-out kept as novel (novelty>=0.99)", num(h[0]));
+            line(sb, "held-out h11 accuracy", num(h[1]));
         }
         return sb.toString();
     }

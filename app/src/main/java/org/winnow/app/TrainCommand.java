@@ -38,8 +38,14 @@ final class TrainCommand implements Callable<Integer> {
     @Option(names = "--out", required = true, paramLabel = "model.wnm", description = "Where to write the model.")
     Path out;
 
-    @Option(names = "--dim", defaultValue = "8", paramLabel = "D", description = "Embedding dimension (default ${DEFAULT-VALUE}).")
+    @Option(names = "--dim", defaultValue = "9", paramLabel = "D",
+            description = "Embedding dimension, the h11-estimate anchor included (default ${DEFAULT-VALUE}).")
     int dim;
+
+    @Option(names = "--anchor", defaultValue = "true", negatable = true, fallbackValue = "true",
+            description = "Anchor the embedding on the first-page h11 estimate and vote on corrections to it "
+                    + "(default; --no-anchor learns every coordinate and votes on h11 itself, see docs/model.md).")
+    boolean anchor;
 
     @Option(names = "--rounds", defaultValue = "0", paramLabel = "R",
             description = "Message-passing rounds of the network (default ${DEFAULT-VALUE}; see docs/model.md).")
@@ -77,7 +83,7 @@ final class TrainCommand implements Callable<Integer> {
             holdoutClass = ReferenceLoader.holdoutClass(holdout);
             Architecture shape = Architecture.defaults(dim);
             options = TrainingOptions.defaults(dim, seed)
-                    .withArchitecture(new Architecture(shape.hidden(), rounds, shape.readout(), dim))
+                    .withArchitecture(new Architecture(shape.hidden(), rounds, shape.readout(), dim, anchor))
                     .withEpochs(epochs).withThreads(threads)
                     .withLabelSource(reference.getFileName() + " (exact rows)");
             if (!(fraction > 0 && fraction <= 1)) {

@@ -4,6 +4,8 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.winnow.geometry.Checks;
+import org.winnow.geometry.Configuration;
+import org.winnow.geometry.cohomology.H11Estimator;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.Calibration;
 import org.winnow.scorer.model.FrozenModel;
@@ -11,7 +13,7 @@ import org.winnow.scorer.model.Normalisation;
 import org.winnow.scorer.model.ReferenceSet;
 
 /**
- * The frozen model as plain JSON (format {@code winnow-weights}, version 1; documented in
+ * The frozen model as plain JSON (format {@code winnow-weights}, version 2; documented in
  * bench/README.md), so that an independent implementation can recompute embeddings and votes.
  *
  * <p>The flat parameter vector is cut into named blocks in the order the network lays them out: row
@@ -23,7 +25,7 @@ import org.winnow.scorer.model.ReferenceSet;
  */
 final class WeightsExport {
     static final String FORMAT = "winnow-weights";
-    static final int VERSION = 1;
+    static final int VERSION = 2;
 
     private final ObjectMapper json;
     private final double[] p;
@@ -53,6 +55,9 @@ final class WeightsExport {
         arch.put("rounds", a.rounds());
         arch.put("readout", a.readout());
         arch.put("dim", a.dim());
+        arch.put("learned_dim", a.learnedDim());
+        arch.put("anchored", a.anchored());
+        arch.put("anchor_scale", Architecture.ANCHOR_SCALE);
         arch.put("row_features", Architecture.ROW_FEATURES);
         arch.put("col_features", Architecture.COL_FEATURES);
         arch.put("global_features", Architecture.GLOBAL_FEATURES);
@@ -82,7 +87,7 @@ final class WeightsExport {
             round.set("row_bias", take(h));
         }
         layers.set("readout_hidden", dense(a.readout(), a.pooledWidth()));
-        layers.set("readout_out", dense(a.dim(), a.readout()));
+        layers.set("readout_out", dense(a.learnedDim(), a.readout()));
         Checks.requireState(at == p.length, "the layout walk used %s of %s parameters", at, p.length);
 
         Calibration c = model.calibration();
@@ -92,6 +97,7 @@ final class WeightsExport {
         vote.put("distance_floor", 1e-12);
         vote.put("bandwidth", c.bandwidth());
         vote.put("tail_scale", c.tailScale());
+        vote.put("tail_threshold", c.tailThreshold());
         vote.set("classes", ints(c.classes()));
         vote.set("loo_distances", vector(c.looDistances()));
 
@@ -101,10 +107,13 @@ final class WeightsExport {
         ArrayNode h11 = ref.putArray("h11");
         ArrayNode configs = ref.putArray("configs");
         ArrayNode emb = ref.putArray("embeddings");
+        ArrayNode estimates = ref.putArray("h11_estimate");
+        H11Estimator estimator = new H11Estimator();
         double[] e = r.embeddings();
         for (int i = 0; i < r.size(); i++) {
             h11.add(r.h11(i));
             configs.add(r.configs()[i]);
+            estimates.add(estimator.estimate(Configuration.parse(r.configs()[i])));
             ArrayNode point = emb.addArray();
             for (int d = 0; d < r.dim(); d++) {
                 point.add(e[i * r.dim() + d]);

@@ -49,13 +49,16 @@ final class EmbeddingNetwork {
         int w2 = a.readW2();
         int b2 = a.readB2();
         int ro = a.readout();
-        for (int o = 0; o < a.dim(); o++) {
+        for (int o = 0; o < a.learnedDim(); o++) {
             double s = p[b2 + o];
             int row = w2 + o * ro;
             for (int i = 0; i < ro; i++) {
                 s += p[row + i] * ws.u[i];
             }
             ws.e[o] = s;
+        }
+        if (a.anchored()) {
+            ws.e[a.learnedDim()] = Architecture.ANCHOR_SCALE * ws.h11Estimate;
         }
     }
 
@@ -142,7 +145,7 @@ final class EmbeddingNetwork {
         double[] u = ws.u;
         double[] du = ws.du;
         java.util.Arrays.fill(du, 0);
-        for (int o = 0; o < a.dim(); o++) {
+        for (int o = 0; o < a.learnedDim(); o++) { // the anchor coordinate has no parameters
             double g = de[o];
             grad[b2 + o] += g;
             int row = w2 + o * ro;

@@ -147,6 +147,25 @@ public record Evaluation(int examples, double accuracy, int[] classes, int[] sup
     }
 
     /**
+     * Among held-out examples: the share a rule would keep as novel (novelty at least
+     * {@code noveltyGuard}) and the share whose h11 is nevertheless predicted right,
+     * {@code {keptAsNovel, accuracy}}; NaN without a held-out class.
+     */
+    public double[] heldOut(double noveltyGuard) {
+        int n = truth.length - examples;
+        if (n == 0) {
+            return new double[] {Double.NaN, Double.NaN};
+        }
+        int novel = 0;
+        int ok = 0;
+        for (int i = examples; i < truth.length; i++) {
+            novel += novelty[i] >= noveltyGuard ? 1 : 0;
+            ok += truth[i] == predicted[i] ? 1 : 0;
+        }
+        return new double[] {novel / (double) n, ok / (double) n};
+    }
+
+    /**
      * Area under the ROC curve of {@code positives} against {@code negatives} by the rank-sum
      * (Mann-Whitney) statistic, ties counting one half. Common practice, no source.
      */

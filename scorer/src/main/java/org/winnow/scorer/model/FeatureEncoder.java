@@ -1,6 +1,7 @@
 package org.winnow.scorer.model;
 
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.cohomology.H11Estimator;
 
 /**
  * Turns a configuration (and its exact chi) into the network's input graph: normalised row, column and
@@ -25,7 +26,7 @@ final class FeatureEncoder {
             colFeatures(c, j, ws.xc, off);
             normalise(ws.xc, off, norm.colMean(), norm.colScale());
         }
-        globalFeatures(c, chi, ws.g, 0);
+        ws.h11Estimate = globalFeatures(c, chi, ws.estimator, ws.g, 0);
         normalise(ws.g, 0, norm.globalMean(), norm.globalScale());
         // Edges grouped by column (for row -> column messages) and by row (for column -> row messages).
         int e = 0;
@@ -99,7 +100,8 @@ final class FeatureEncoder {
         out[off + 3] = weighted;
     }
 
-    static void globalFeatures(Configuration c, long chi, double[] out, int off) {
+    /** Writes the raw global features and returns the first-page h11 estimate. */
+    static int globalFeatures(Configuration c, long chi, H11Estimator estimator, double[] out, int off) {
         int nnz = 0;
         int big = 0;
         int sumN = 0;
@@ -121,5 +123,11 @@ final class FeatureEncoder {
         out[off + 5] = sumN;
         out[off + 6] = ones;
         out[off + 7] = sumN - c.cols();
+        int estimate = estimator.estimate(c);
+        out[off + 8] = estimate;
+        out[off + 9] = estimate - c.rows();
+        out[off + 10] = estimator.eulerOne();
+        out[off + 11] = Math.max(0, estimator.conormalTwo() - estimator.eulerTwo());
+        return estimate;
     }
 }

@@ -5,6 +5,7 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.cohomology.H11Estimator;
 
 /**
  * A trained, immutable similarity model: architecture, weights, input normalisation, the reference
@@ -20,6 +21,8 @@ public final class FrozenModel {
     private final TrainingMetadata metadata;
     private final FlatIndex index;
     private final int[] classOf;
+    private final int[] residuals;
+    private final int[] residualOf;
     private final int dimension;
     private final String checksum;
 
@@ -47,6 +50,20 @@ public final class FrozenModel {
             Checks.requireArgument(c >= 0, "reference h11 %s is missing from the calibration's classes",
                     reference.h11(i));
             classOf[i] = c;
+        }
+        // What each reference point votes for: its exact h11 minus its first-page estimate (anchored), or
+        // its h11 itself.
+        H11Estimator estimator = new H11Estimator();
+        int[] residual = new int[reference.size()];
+        for (int i = 0; i < reference.size(); i++) {
+            int estimate = architecture.anchored()
+                    ? estimator.estimate(Configuration.parse(reference.configs()[i])) : 0;
+            residual[i] = reference.h11(i) - estimate;
+        }
+        this.residuals = Arrays.stream(residual).distinct().sorted().toArray();
+        this.residualOf = new int[reference.size()];
+        for (int i = 0; i < reference.size(); i++) {
+            residualOf[i] = Arrays.binarySearch(residuals, residual[i]);
         }
         this.dimension = Configuration.parse(reference.configs()[0]).dimension();
         this.checksum = ModelFile.hex(ModelFile.sha256(ModelFile.payloadBytes(payload())));
@@ -130,6 +147,20 @@ public final class FrozenModel {
 
     int classOf(int referenceIndex) {
         return classOf[referenceIndex];
+    }
+
+    /** Index into {@link #residual} of what reference point {@code referenceIndex} votes for. */
+    int residualOf(int referenceIndex) {
+        return residualOf[referenceIndex];
+    }
+
+    /** The distinct corrections {@code h11 - estimate} of the reference, ascending. */
+    int residual(int index) {
+        return residuals[index];
+    }
+
+    int residualCount() {
+        return residuals.length;
     }
 
     private ModelFile.Payload payload() {

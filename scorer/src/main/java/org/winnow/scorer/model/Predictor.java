@@ -8,9 +8,13 @@ import org.winnow.geometry.Configuration;
  * from {@link FrozenModel#newPredictor()}. {@link #score} allocates nothing; {@link #predict} adds only
  * the returned record.
  *
- * <p>The vote weighs each of the k nearest reference points as {@link Calibration} describes; the
- * confidence is the winning class's share of the total weight. Ties between classes go to the
- * smaller h11.
+ * <p>The vote weighs each of the k nearest reference points as {@link Calibration} describes. What a
+ * neighbour votes for is a correction: its exact h11 minus its own first-page estimate
+ * ({@code H11Estimator}); the prediction is the candidate's estimate plus the winning correction, and the
+ * confidence is that correction's share of the total weight. So neighbours teach where the estimate
+ * fails, and a candidate of an h11 that no reference point has is still predicted from its own
+ * estimate (and flagged by its novelty, since the embedding's anchor coordinate keeps it away from the
+ * reference). Ties between corrections go to the one nearer zero, then the smaller.
  */
 public final class Predictor {
     private static final double DISTANCE_FLOOR = 1e-12;
@@ -23,6 +27,7 @@ public final class Predictor {
     private final double[] classWeight;
     private int found;
     private int winner;
+    private int estimate;
     private double confidence;
     private double novelty;
 
@@ -33,7 +38,7 @@ public final class Predictor {
         this.searchK = Math.max(cal.k(), cal.noveltyK());
         this.neighbours = new int[searchK];
         this.distances = new double[searchK];
-        this.classWeight = new double[cal.classes().length];
+        this.classWeight = new double[model.residualCount()];
     }
 
     /**
@@ -55,27 +60,34 @@ public final class Predictor {
         for (int i = 0; i < k; i++) {
             double w = bw > 0 ? Math.exp(-(distances[i] * distances[i] - d0) * inv2)
                     : 1.0 / (distances[i] + DISTANCE_FLOOR);
-            classWeight[model.classOf(neighbours[i])] += w;
+            classWeight[model.residualOf(neighbours[i])] += w;
             total += w;
         }
-        int best = 0;
+        int best = -1;
         double bestWeight = -1;
         for (int i = 0; i < k; i++) {
-            int c = model.classOf(neighbours[i]);
+            int c = model.residualOf(neighbours[i]);
             double w = classWeight[c];
-            if (w > bestWeight || (w == bestWeight && c < best)) {
+            if (w > bestWeight || (w == bestWeight && prefer(c, best))) {
                 bestWeight = w;
                 best = c;
             }
         }
         for (int i = 0; i < k; i++) {
-            classWeight[model.classOf(neighbours[i])] = 0;
+            classWeight[model.residualOf(neighbours[i])] = 0;
         }
         winner = best;
         confidence = bestWeight / total;
         int nk = Math.min(cal.noveltyK(), found);
         novelty = cal.novelty(distances[nk - 1]);
-        return cal.classes()[winner];
+        estimate = model.architecture().anchored() ? ws.h11Estimate : 0;
+        return estimate + model.residual(winner);
+    }
+
+    private boolean prefer(int c, int over) {
+        int a = Math.abs(model.residual(c));
+        int b = Math.abs(model.residual(over));
+        return a < b || (a == b && model.residual(c) < model.residual(over));
     }
 
     /** Scores one candidate (see {@link #score}) and packs the result, with the derived Hodge numbers. */
@@ -100,28 +112,39 @@ public final class Predictor {
         int k = Math.min(model.calibration().k(), found);
         int[] votes = new int[k];
         for (int i = 0; i < k; i++) {
-            votes[i] = model.reference().h11(neighbours[i]);
+            votes[i] = estimate + model.residual(model.residualOf(neighbours[i]));
         }
         return new Prediction(h11, confidence, h21, h31, h22, novelty, votes,
                 model.reference().configs()[neighbours[0]], distances[0]);
     }
 
     /**
-     * Among the voting neighbours of the winning class, nearest first, the first whose (h21, h31)
-     * satisfies {@code chi = 48 + 6(h11 - h21 + h31)} with the predicted h11; null if none does.
+     * The four-fold tuple {@code (h11, h21, h31)} satisfying {@code chi = 48 + 6(h11 - h21 + h31)}: h21
+     * from the nearest voting neighbour of the winning correction that has one, h31 from the identity;
+     * null when chi - 48 is not a multiple of 6, no such neighbour exists, or h31 would be negative.
      */
     private int[] consistentFourFoldTuple(int h11, long chi) {
+        if ((chi - 48) % 6 != 0) {
+            return null;
+        }
         int k = Math.min(model.calibration().k(), found);
         for (int i = 0; i < k; i++) {
             int[] label = model.reference().hodge()[neighbours[i]];
-            if (label[0] != h11 || label.length < 3) {
+            if (model.residualOf(neighbours[i]) != winner || label.length < 3) {
                 continue;
             }
-            if (48L + 6L * (h11 - label[1] + label[2]) == chi) {
-                return label;
-            }
+            long h31 = (chi - 48) / 6 - h11 + label[1];
+            return h31 >= 0 ? new int[] {h11, label[1], Math.toIntExact(h31)} : null;
         }
         return null;
+    }
+
+    /**
+     * The first-page h11 estimate of the last scored candidate (the prediction before correction); 0
+     * for an unanchored model, which votes on h11 directly.
+     */
+    public int estimate() {
+        return estimate;
     }
 
     /** The winner's vote share for the last scored candidate. */

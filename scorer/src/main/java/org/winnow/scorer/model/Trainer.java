@@ -180,7 +180,7 @@ public final class Trainer {
             fill(p, a.rowMsg(t), h * h, lim / 2, rng);
         }
         fill(p, a.readW1(), a.readout() * a.pooledWidth(), Math.sqrt(6.0 / a.pooledWidth()), rng);
-        fill(p, a.readW2(), a.dim() * a.readout(), Math.sqrt(6.0 / (a.readout() + a.dim())), rng);
+        fill(p, a.readW2(), a.learnedDim() * a.readout(), Math.sqrt(6.0 / (a.readout() + a.learnedDim())), rng);
         return p;
     }
 
@@ -191,41 +191,83 @@ public final class Trainer {
     }
 
     /**
-     * Leave-one-out distances of the reference to itself: for each point, the distance to its
-     * {@code noveltyK}-th nearest other point (noveltyK capped at n - 1), pooled and sorted, plus
-     * their quantiles per class.
+     * Leave-one-out distances of the reference to itself, measured within each class: for each point,
+     * the distance to its {@code noveltyK}-th nearest other point of the same h11 (noveltyK capped at the
+     * class size less one; points alone in their class give none), pooled and sorted, plus their
+     * quantiles per class. Within-class, because novelty asks whether a candidate lies as close to the
+     * reference as members of one class lie to each other; with few labels, the distances between
+     * neighbouring classes (a margin or more apart) would otherwise make a whole unseen class look
+     * ordinary. When no class has two members the distances are taken over all points instead.
      */
     static Calibration calibrate(double[] embeddings, int dim, int[] labels, int k, int noveltyK) {
         int n = labels.length;
         int nk = Math.max(1, Math.min(noveltyK, n - 1));
-        FlatIndex index = new FlatIndex(embeddings, dim);
-        int[] idx = new int[nk];
-        double[] dist = new double[nk];
-        double[] q = new double[dim];
-        double[] loo = new double[n > 1 ? n : 0];
-        for (int i = 0; i < loo.length; i++) {
-            System.arraycopy(embeddings, i * dim, q, 0, dim);
-            int found = index.search(q, nk, i, idx, dist);
-            loo[i] = dist[found - 1];
+        double[] perPoint = perPointWithinClass(embeddings, dim, labels, nk);
+        double[] pooled = Arrays.stream(perPoint).filter(x -> !Double.isNaN(x)).toArray();
+        if (pooled.length == 0 && n > 1) {
+            pooled = allClassDistances(embeddings, dim, n, nk);
         }
         int[] classes = Arrays.stream(labels).distinct().sorted().toArray();
         double[][] quantiles = new double[classes.length][];
         for (int c = 0; c < classes.length; c++) {
             int label = classes[c];
-            double[] mine = new double[0];
-            if (loo.length > 0) {
-                mine = java.util.stream.IntStream.range(0, n).filter(i -> labels[i] == label)
-                        .mapToDouble(i -> loo[i]).sorted().toArray();
-            }
+            double[] mine = java.util.stream.IntStream.range(0, n).filter(i -> labels[i] == label)
+                    .mapToDouble(i -> perPoint[i]).filter(d -> !Double.isNaN(d)).sorted().toArray();
             quantiles[c] = new double[Calibration.QUANTILES.length];
             for (int j = 0; j < quantiles[c].length; j++) {
                 quantiles[c][j] = mine.length == 0 ? Double.NaN
                         : mine[Math.max(0, (int) Math.ceil(Calibration.QUANTILES[j] * mine.length) - 1)];
             }
         }
-        Arrays.sort(loo);
-        double bandwidth = loo.length == 0 ? 0 : loo[(loo.length - 1) / 2];
-        return new Calibration(k, nk, bandwidth, tailScale(loo), loo, classes, quantiles);
+        Arrays.sort(pooled);
+        double bandwidth = pooled.length == 0 ? 0 : pooled[(pooled.length - 1) / 2];
+        return new Calibration(k, nk, bandwidth, tailScale(pooled), pooled, classes, quantiles);
+    }
+
+    /** Per point, its {@code nk}-th nearest same-class distance (NaN when alone in its class). */
+    private static double[] perPointWithinClass(double[] e, int dim, int[] labels, int nk) {
+        int n = labels.length;
+        double[] out = new double[n];
+        double[] d = new double[n];
+        for (int i = 0; i < n; i++) {
+            int count = 0;
+            for (int j = 0; j < n; j++) {
+                if (j != i && labels[j] == labels[i]) {
+                    d[count++] = distance(e, dim, i, j);
+                }
+            }
+            if (count == 0) {
+                out[i] = Double.NaN;
+                continue;
+            }
+            Arrays.sort(d, 0, count);
+            out[i] = d[Math.min(nk, count) - 1];
+        }
+        return out;
+    }
+
+    /** Per point, its {@code nk}-th nearest distance to any other point. */
+    private static double[] allClassDistances(double[] e, int dim, int n, int nk) {
+        FlatIndex index = new FlatIndex(e, dim);
+        int[] idx = new int[nk];
+        double[] dist = new double[nk];
+        double[] q = new double[dim];
+        double[] loo = new double[n];
+        for (int i = 0; i < n; i++) {
+            System.arraycopy(e, i * dim, q, 0, dim);
+            int found = index.search(q, nk, i, idx, dist);
+            loo[i] = dist[found - 1];
+        }
+        return loo;
+    }
+
+    private static double distance(double[] e, int dim, int i, int j) {
+        double s = 0;
+        for (int x = 0; x < dim; x++) {
+            double t = e[i * dim + x] - e[j * dim + x];
+            s += t * t;
+        }
+        return Math.sqrt(s);
     }
 
     /** Mean excess over the 90% quantile of the sorted distances (0 when there is no spread). */

@@ -41,20 +41,21 @@ class PredictorTest {
 
     @Test
     void confidenceIsTheDistanceWeightedVoteShare() {
-        // Candidate at 0; neighbours at 1 (class 5), 2 and -4 (class 6). The leave-one-out distances are
-        // 1, 1, 5, so the bandwidth is 1 and the weights exp(-(d^2 - 1) / 2) are 1, e^-1.5, e^-7.5.
-        FrozenModel m = model(new String[] {"4:5", "5:3,3", "5:2,4"}, new long[] {0, 0, 0},
-                new int[][] {{5, 5}, {6, 6}, {6, 6}}, new double[] {1, 2, -4}, 3, 1);
+        // Candidate at 0; neighbours at 1 and -1 (class 5), 2 and -4 (class 6). The within-class
+        // leave-one-out distances are 2, 2, 6, 6, so the bandwidth is 2 and, with k = 3, the weights
+        // exp(-(d^2 - 1) / 8) are 1, 1, e^-3/8.
+        FrozenModel m = model(new String[] {"4:5", "5:3,3", "5:2,4", "6:2,2,3"}, new long[] {0, 0, 0, 0},
+                new int[][] {{5, 5}, {5, 5}, {6, 6}, {6, 6}}, new double[] {1, -1, 2, -4}, 3, 1);
         Predictor pr = m.newPredictor();
         int h11 = pr.score(Configuration.parse("4:5"), 0);
         assertEquals(5, h11);
-        assertEquals(1 / (1 + Math.exp(-1.5) + Math.exp(-7.5)), pr.confidence(), 1e-12);
-        assertEquals(0, pr.nearestIndex());
+        assertEquals(2 / (2 + Math.exp(-3.0 / 8)), pr.confidence(), 1e-12);
+        assertEquals(1.0, pr.nearestDistance(), 0);
     }
 
     @Test
     void fourFoldTupleIsTheOneConsistentWithChi() {
-        // Two neighbours of class h11 = 1 with different (h21, h31); only the second satisfies
+        // The nearest neighbour of the winning class gives h21 = 0; h31 then follows from
         // chi = 48 + 6 (h11 - h21 + h31) for chi = 2610, the sextic four-fold's (1, 0, 426, 1752)
         // ("All Complete Intersection Calabi-Yau Four-Folds", arXiv:1303.1832, JHEP 2013).
         FrozenModel m = model(new String[] {"6:2,5", "5:6"}, new long[] {2190, 2610},
@@ -65,7 +66,7 @@ class PredictorTest {
         assertEquals(426, p.h31());
         assertEquals(1752, p.h22(), "h22 = 44 + 4 h11 - 2 h21 + 4 h31");
         Prediction none = m.newPredictor().predict(Configuration.parse("5:6"), 2000);
-        assertNull(none.h31(), "no neighbour tuple is consistent with chi = 2000");
+        assertNull(none.h31(), "chi = 2000 is not 48 plus a multiple of 6");
     }
 
     @Test

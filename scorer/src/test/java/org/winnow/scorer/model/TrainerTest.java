@@ -51,21 +51,31 @@ class TrainerTest {
     }
 
     @Test
-    void calibrationIsTheSortedLeaveOneOutDistance() {
-        // Points on a line at 0, 1, 3, 7: nearest other points at 1, 1, 2, 4.
-        Calibration c = Trainer.calibrate(new double[] {0, 1, 3, 7}, 1, new int[] {1, 1, 2, 2}, 3, 1);
-        assertArrayEquals(new double[] {1, 1, 2, 4}, c.looDistances(), 0);
-        assertArrayEquals(new int[] {1, 2}, c.classes());
+    void calibrationIsTheSortedWithinClassLeaveOneOutDistance() {
+        // Class 1 at 0 and 1, class 2 at 2, 8 and 9, class 3 alone at 20. Within-class nearest distances:
+        // 1, 1 | 6, 1, 1 | none. (Across classes the point at 2 would have had 1.)
+        Calibration c = Trainer.calibrate(new double[] {0, 1, 2, 8, 9, 20}, 1, new int[] {1, 1, 2, 2, 2, 3}, 3, 1);
+        assertArrayEquals(new double[] {1, 1, 1, 1, 6}, c.looDistances(), 0);
+        assertArrayEquals(new int[] {1, 2, 3}, c.classes());
         assertEquals(1.0, c.classQuantiles()[0][0], 0);
-        assertEquals(4.0, c.classQuantiles()[1][3], 0);
+        assertEquals(6.0, c.classQuantiles()[1][3], 0);
+        assertTrue(Double.isNaN(c.classQuantiles()[2][0]), "a class of one has no within-class distance");
         // p = (1 + #{D >= delta}) / (N + 1); novelty = 1 - p.
-        assertEquals(1 - 5.0 / 5, c.novelty(0.5), 1e-15);
-        assertEquals(1 - 3.0 / 5, c.novelty(1.5), 1e-15);
-        assertEquals(1 - 2.0 / 5, c.novelty(4), 1e-15);
-        // Beyond the largest distance (4) an exponential tail with the mean excess over the 90%
-        // quantile (here 4 - 2 = 2) as scale: p = exp(-(10 - 4) / 2) / 5.
-        assertEquals(2.0, c.tailScale(), 0);
-        assertEquals(1 - Math.exp(-3) / 5, c.novelty(10), 1e-15);
+        assertEquals(0.0, c.novelty(0.5), 1e-15);
+        assertEquals(1 - 6.0 / 6, c.novelty(1), 1e-15);
+        // Above the 90% quantile u = 1 an exponential tail with the mean excess over u (6 - 1 = 5) as
+        // scale, joined at u: p = (1 + #{D > 1}) / 6 * exp(-(delta - 1) / 5).
+        assertEquals(1.0, c.tailThreshold(), 0);
+        assertEquals(5.0, c.tailScale(), 0);
+        assertEquals(1 - 2.0 / 6 * Math.exp(-0.2), c.novelty(2), 1e-15);
+        assertEquals(1 - 2.0 / 6 * Math.exp(-1), c.novelty(6), 1e-15);
+        assertEquals(1 - 2.0 / 6 * Math.exp(-3), c.novelty(16), 1e-15);
         assertEquals(1.0, c.bandwidth(), 0, "the median leave-one-out distance");
+    }
+
+    @Test
+    void calibrationFallsBackToAllPointsWhenEveryClassHasOneMember() {
+        Calibration c = Trainer.calibrate(new double[] {0, 1, 3}, 1, new int[] {1, 2, 3}, 3, 1);
+        assertArrayEquals(new double[] {1, 1, 2}, c.looDistances(), 0);
     }
 }
