@@ -14,9 +14,20 @@ class EmbeddingNetworkTest {
 
     @Test
     void embeddingIsInvariantUnderRowAndColumnPermutations() {
+        invariantUnderPermutations(ARCH);
+    }
+
+    @Test
+    void anchoredEmbeddingIsInvariantUnderRowAndColumnPermutations() {
+        // The anchor coordinate is the first-page h11 estimate: its search order follows the columns, its
+        // value must not.
+        invariantUnderPermutations(Architecture.defaults(5));
+    }
+
+    private static void invariantUnderPermutations(Architecture arch) {
         SplittableRandom rng = new SplittableRandom(11);
-        double[] p = Trainer.initialParameters(ARCH, rng.split());
-        Workspace ws = new Workspace(ARCH);
+        double[] p = Trainer.initialParameters(arch, rng.split());
+        Workspace ws = new Workspace(arch);
         List<LabelledExample> examples = SyntheticScenario.generate(200, 5);
         for (LabelledExample ex : examples) {
             double[] base = embed(p, ex.config(), ex.chi(), ws);
