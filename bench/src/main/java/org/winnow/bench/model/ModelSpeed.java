@@ -21,13 +21,51 @@ import smile.neighbor.KDTree;
  * The model's speed in CPU time rather than wall time, which on a shared 2-core machine is the
  * repeatable number (the JMH figures beside it swing with foreign load): scoring per candidate on one
  * thread, bytes allocated per candidate, the flat scan against Smile's KD-tree, and one training run on
- * a 1% labelled set. Run: {@code java -cp bench/target/benchmarks.jar org.winnow.bench.model.ModelSpeed}.
+ * a 1% labelled set. Run: {@code java -cp bench/target/benchmarks.jar org.winnow.bench.model.ModelSpeed
+ * [MODEL.wnm REFERENCE.tsv]}; with a model and a labelled file it first times, on the file's
+ * configurations, the first-page h11 estimate alone and the whole score with that model.
  */
 public final class ModelSpeed {
     private ModelSpeed() {}
 
-    public static void main(String[] args) {
+    /** CPU time per candidate of the estimate alone and of the whole score, over a labelled file's rows. */
+    private static void realSpace(ThreadMXBean mx, java.nio.file.Path modelFile, java.nio.file.Path reference)
+            throws java.io.IOException {
+        FrozenModel model = FrozenModel.load(modelFile);
+        List<LabelledExample> rows = ModelBaselines.load(reference);
+        Configuration[] configs = rows.stream().map(LabelledExample::config).toArray(Configuration[]::new);
+        long[] chis = rows.stream().mapToLong(LabelledExample::chi).toArray();
+        org.winnow.geometry.cohomology.H11Estimator estimator = new org.winnow.geometry.cohomology.H11Estimator();
+        Predictor p = model.newPredictor();
+        long sink = 0;
+        for (int pass = 0; pass < 2; pass++) { // the first pass warms up
+            int n = configs.length * 20;
+            long cpu0 = mx.getCurrentThreadCpuTime();
+            for (int i = 0; i < n; i++) {
+                sink += estimator.estimate(configs[i % configs.length]);
+            }
+            long estimateCpu = mx.getCurrentThreadCpuTime() - cpu0;
+            long bytes0 = allocated();
+            cpu0 = mx.getCurrentThreadCpuTime();
+            for (int i = 0; i < n; i++) {
+                sink += p.score(configs[i % configs.length], chis[i % configs.length]);
+            }
+            long scoreCpu = mx.getCurrentThreadCpuTime() - cpu0;
+            long bytes = allocated() - bytes0;
+            if (pass == 1) {
+                System.out.printf(Locale.ROOT, "%s, %d configurations x 20: estimate alone %.2f us/candidate CPU;"
+                        + " whole score %.2f us/candidate CPU = %,.0f candidates/s per core, %.3f bytes allocated per"
+                        + " candidate (checksum %d)%n", reference.getFileName(), configs.length, estimateCpu / 1e3 / n,
+                        scoreCpu / 1e3 / n, n / (scoreCpu / 1e9), bytes / (double) n, sink);
+            }
+        }
+    }
+
+    public static void main(String[] args) throws java.io.IOException {
         ThreadMXBean mx = ManagementFactory.getThreadMXBean();
+        if (args.length == 2) {
+            realSpace(mx, java.nio.file.Path.of(args[0]), java.nio.file.Path.of(args[1]));
+        }
         List<LabelledExample> cand = SyntheticScenario.generate(4096, 2);
         Configuration[] configs = cand.stream().map(LabelledExample::config).toArray(Configuration[]::new);
         long[] chis = cand.stream().mapToLong(LabelledExample::chi).toArray();

@@ -41,6 +41,11 @@ public final class H11Estimator {
     private final int[] excluded = new int[Configuration.MAX_ROWS];
     private final int[] order = new int[Configuration.MAX_COLS];
     private final int[] position = new int[Configuration.MAX_COLS];
+    /** Per column: the rows of its support, their degrees (both at {@code col * MAX_ROWS}), and its row mask. */
+    private final int[] supportRow = new int[Configuration.MAX_COLS * Configuration.MAX_ROWS];
+    private final int[] supportDegree = new int[Configuration.MAX_COLS * Configuration.MAX_ROWS];
+    private final int[] supportSize = new int[Configuration.MAX_COLS];
+    private final int[] supportMask = new int[Configuration.MAX_COLS];
     private long eulerOne;
     private long eulerTwo;
     private long conormalTwo;
@@ -59,6 +64,21 @@ public final class H11Estimator {
         for (int r = 0; r < m; r++) {
             sums[r] = 0;
             excluded[r] = 0;
+        }
+        for (int j = 0; j < k; j++) {
+            int size = 0;
+            int mask = 0;
+            for (int r = 0; r < m; r++) {
+                int q = config.q(r, j);
+                if (q != 0) {
+                    supportRow[j * Configuration.MAX_ROWS + size] = r;
+                    supportDegree[j * Configuration.MAX_ROWS + size] = q;
+                    size++;
+                    mask |= 1 << r;
+                }
+            }
+            supportSize[j] = size;
+            supportMask[j] = mask;
         }
         orderColumns(config);
         search(config, 0, 0, 0, 0);
@@ -82,33 +102,31 @@ public final class H11Estimator {
             leaf(c, subset, size);
             return;
         }
-        int m = c.rows();
         int col = order[j];
+        int base = col * Configuration.MAX_ROWS;
+        int len = supportSize[col];
         int outGap = gapRows;
         int inGap = gapRows;
-        for (int r = 0; r < m; r++) {
-            int q = c.q(r, col);
-            if (q != 0) {
-                if (sums[r] > 0) {
-                    outGap |= 1 << r;
-                }
-                if (excluded[r] > 0) {
-                    inGap |= 1 << r;
-                }
+        for (int x = 0; x < len; x++) {
+            int r = supportRow[base + x];
+            if (sums[r] > 0) {
+                outGap |= 1 << r;
             }
-        }
-        for (int r = 0; r < m; r++) {
-            excluded[r] += c.q(r, col);
+            if (excluded[r] > 0) {
+                inGap |= 1 << r;
+            }
+            excluded[r] += supportDegree[base + x];
         }
         search(c, j + 1, subset, size, outGap);
-        for (int r = 0; r < m; r++) {
-            int q = c.q(r, col);
+        for (int x = 0; x < len; x++) {
+            int r = supportRow[base + x];
+            int q = supportDegree[base + x];
             excluded[r] -= q;
             sums[r] += q;
         }
         search(c, j + 1, subset | 1 << col, size + 1, inGap);
-        for (int r = 0; r < m; r++) {
-            sums[r] -= c.q(r, col);
+        for (int x = 0; x < len; x++) {
+            sums[supportRow[base + x]] -= supportDegree[base + x];
         }
     }
 
@@ -151,8 +169,8 @@ public final class H11Estimator {
             return true;
         }
         for (int col = 0; col < c.cols(); col++) {
-            if (position[col] < j && (subset & (1 << col)) == 0) {
-                continue; // excluded already
+            if ((gapRows & ~supportMask[col]) != 0 || (position[col] < j && (subset & (1 << col)) == 0)) {
+                continue; // misses a stuck row, or excluded already
             }
             boolean lifts = true;
             for (int g = gapRows; g != 0 && lifts; g &= g - 1) {
