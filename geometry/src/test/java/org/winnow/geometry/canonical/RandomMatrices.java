@@ -4,7 +4,7 @@ import java.util.random.RandomGenerator;
 import org.winnow.geometry.Configuration;
 
 /** Seeded random matrices and permutations for the canonical-form tests. */
-final class RandomMatrices {
+public final class RandomMatrices {
     private RandomMatrices() {}
 
     /**
@@ -32,7 +32,7 @@ final class RandomMatrices {
     }
 
     /** The same matrix with rows and columns shuffled. */
-    static Configuration permuted(RandomGenerator rnd, Configuration c) {
+    public static Configuration permuted(RandomGenerator rnd, Configuration c) {
         int[] rows = permutation(rnd, c.rows());
         int[] cols = permutation(rnd, c.cols());
         int[] n = new int[c.rows()];

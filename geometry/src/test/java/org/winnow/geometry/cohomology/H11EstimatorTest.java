@@ -8,6 +8,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.CsvSource;
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.canonical.RandomMatrices;
 import org.winnow.geometry.invariants.RandomConfigurations;
 
 class H11EstimatorTest {
@@ -78,39 +79,11 @@ class H11EstimatorTest {
             int expected = estimator.estimate(c);
             long[] terms = {estimator.eulerOne(), estimator.eulerTwo(), estimator.conormalTwo()};
             for (int shuffle = 0; shuffle < 3; shuffle++) {
-                Configuration p = permuted(c, rng);
+                Configuration p = RandomMatrices.permuted(rng, c);
                 assertEquals(expected, estimator.estimate(p), () -> c.toText() + " vs " + p.toText());
                 assertEquals(terms[2], estimator.conormalTwo(), p.toText());
             }
         }
-    }
-
-    private static Configuration permuted(Configuration c, SplittableRandom rng) {
-        int[] rows = shuffled(c.rows(), rng);
-        int[] cols = shuffled(c.cols(), rng);
-        int[] n = new int[c.rows()];
-        int[][] q = new int[c.rows()][c.cols()];
-        for (int r = 0; r < c.rows(); r++) {
-            n[r] = c.n(rows[r]);
-            for (int j = 0; j < c.cols(); j++) {
-                q[r][j] = c.q(rows[r], cols[j]);
-            }
-        }
-        return Configuration.of(n, q);
-    }
-
-    private static int[] shuffled(int len, SplittableRandom rng) {
-        int[] a = new int[len];
-        for (int i = 0; i < len; i++) {
-            a[i] = i;
-        }
-        for (int i = len - 1; i > 0; i--) {
-            int j = rng.nextInt(i + 1);
-            int t = a[i];
-            a[i] = a[j];
-            a[j] = t;
-        }
-        return a;
     }
 
     // Published h11 of three-folds (and the one-row four-folds, whose h11 is 1). Sources:
