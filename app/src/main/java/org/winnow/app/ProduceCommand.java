@@ -1,12 +1,14 @@
 package org.winnow.app;
 
-import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.concurrent.Callable;
+import java.time.Clock;
 import org.winnow.app.cluster.ClusterProducer;
+import org.winnow.app.cluster.StageReporter;
+import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.app.scan.InputFileSource;
 import org.winnow.app.scan.RunIds;
 import org.winnow.pipeline.BadInputException;
@@ -14,8 +16,10 @@ import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.SourceReport;
 import org.winnow.pipeline.kafka.ClusterRefusedException;
 import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.MetricsPublisher;
 import org.winnow.pipeline.kafka.RunTopics;
 import org.winnow.pipeline.kafka.TopicLayout;
+import org.winnow.pipeline.metrics.StageKind;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
@@ -28,11 +32,17 @@ import picocli.CommandLine.Spec;
 @Command(name = "produce", mixinStandardHelpOptions = true, sortOptions = false,
         description = {"Create a cluster run on Kafka and send its candidates from an input file, exactly once."})
 final class ProduceCommand implements Callable<Integer> {
+    /** The producer's name in its run's metric snapshots; a run has one producer (shard 0). */
+    static final String PRODUCER_INSTANCE = "producer";
+
     @Spec
     CommandSpec spec;
 
     @picocli.CommandLine.Mixin
     KafkaConnectionOptions connection = new KafkaConnectionOptions();
+
+    @picocli.CommandLine.Mixin
+    MetricsPortOption metrics = new MetricsPortOption();
 
     @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to create or continue.")
     String run;
@@ -62,6 +72,7 @@ final class ProduceCommand implements Callable<Integer> {
             if (!Files.isReadable(input)) {
                 return fail(err, "--input " + input + ": no such readable file");
             }
+            metrics.validate();
             KafkaSettings k = connection.settings();
             // The input's bytes identify the run's source, so a second producer with another file is refused.
             String identity = input.getFileName() + " sha256:" + RunIds.of(List.of(), input);
@@ -70,8 +81,13 @@ final class ProduceCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             return fail(err, e.getMessage());
         }
-        try {
-            SourceReport r = ClusterProducer.run(settings, new SimpleMeterRegistry());
+        try (ProcessMetrics process = metrics.open(err, "produce")) {
+            ClusterProducer.createRun(settings);
+            SourceReport r;
+            try (MetricsPublisher snapshots = StageReporter.start(settings.kafka(), settings.run(), StageKind.PRODUCE,
+                    PRODUCER_INSTANCE, process.registry(), Clock.systemUTC(), StageReporter.PERIOD)) {
+                r = ClusterProducer.run(settings, process.registry());
+            }
             spec.commandLine().getOut().printf("run %s: %d candidates sent (%d duplicates, %d bad input lines)%n",
                     run, r.candidates(), r.duplicates(), r.badInputs());
             spec.commandLine().getOut().flush();
@@ -80,6 +96,8 @@ final class ProduceCommand implements Callable<Integer> {
             return fail(err, e.getMessage());
         } catch (BadInputException e) {
             return fail(err, input + " " + e.getMessage() + " (--strict)");
+        } catch (java.io.IOException e) {
+            return fail(err, e.getMessage());
         }
     }
 

@@ -1,11 +1,5 @@
 package org.winnow.app;
 
-import io.micrometer.core.instrument.binder.jvm.JvmGcMetrics;
-import io.micrometer.core.instrument.binder.jvm.JvmMemoryMetrics;
-import io.micrometer.core.instrument.binder.jvm.JvmThreadMetrics;
-import io.micrometer.core.instrument.binder.system.ProcessorMetrics;
-import io.micrometer.prometheusmetrics.PrometheusConfig;
-import io.micrometer.prometheusmetrics.PrometheusMeterRegistry;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Files;
@@ -19,7 +13,7 @@ import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicReference;
 import org.winnow.app.scan.InputFileSource;
-import org.winnow.app.scan.MetricsServer;
+import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.app.scan.ScanJob;
 import org.winnow.app.scan.StatusPrinter;
 import org.winnow.pipeline.BadInputException;
@@ -81,9 +75,8 @@ final class ScanCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Scorer threads (default: the number of processors).")
     Integer threads;
 
-    @Option(names = "--metrics-port", paramLabel = "P",
-            description = "Serve Prometheus metrics on http://127.0.0.1:P/metrics (0 picks a free port).")
-    Integer metricsPort;
+    @picocli.CommandLine.Mixin
+    MetricsPortOption metrics = new MetricsPortOption();
 
     @Option(names = "--strict", description = "Fail on the first malformed input line instead of skipping it.")
     boolean strict;
@@ -106,20 +99,11 @@ final class ScanCommand implements Callable<Integer> {
         } catch (StartupException e) {
             return fail(err, e.getMessage());
         }
-        PrometheusMeterRegistry registry = new PrometheusMeterRegistry(PrometheusConfig.DEFAULT);
-        new JvmMemoryMetrics().bindTo(registry);
-        new JvmThreadMetrics().bindTo(registry);
-        new ProcessorMetrics().bindTo(registry);
         AtomicReference<StatusPrinter> printer = new AtomicReference<>();
-        try (JvmGcMetrics gc = new JvmGcMetrics(); MetricsServer server = metricsServer(registry)) {
-            gc.bindTo(registry);
-            if (server != null) {
-                err.println("winnow scan: metrics on http://127.0.0.1:" + server.port() + "/metrics");
-                err.flush();
-            }
+        try (ProcessMetrics process = metrics.open(err, "scan")) {
             ScanJob.Outcome outcome;
             try {
-                outcome = ScanJob.run(settings, registry, Clock.systemUTC(), CrashHook.NONE, s -> printer.set(
+                outcome = ScanJob.run(settings, process.registry(), Clock.systemUTC(), CrashHook.NONE, s -> printer.set(
                         StatusPrinter.start(s, System.err, System::nanoTime)));
             } finally {
                 if (printer.get() != null) {
@@ -140,10 +124,6 @@ final class ScanCommand implements Callable<Integer> {
         } catch (IOException e) {
             return fail(err, e.getMessage());
         }
-    }
-
-    private MetricsServer metricsServer(PrometheusMeterRegistry registry) throws IOException {
-        return metricsPort == null ? null : new MetricsServer(registry, metricsPort);
     }
 
     private void summary(Manifest m) {
@@ -191,8 +171,10 @@ final class ScanCommand implements Callable<Integer> {
         if (linesPerFile < 1) {
             throw new StartupException("--lines-per-file must be at least 1, got " + linesPerFile);
         }
-        if (metricsPort != null && (metricsPort < 0 || metricsPort > 65535)) {
-            throw new StartupException("--metrics-port must be in 0..65535, got " + metricsPort);
+        try {
+            metrics.validate();
+        } catch (IllegalArgumentException e) {
+            throw new StartupException(e.getMessage());
         }
         if (input == null) {
             throw new StartupException("give --input F (a file of configurations)");

@@ -1,6 +1,5 @@
 package org.winnow.app;
 
-import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -9,11 +8,16 @@ import java.util.List;
 import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicLong;
+import java.time.Clock;
 import org.winnow.app.cluster.ClusterScorer;
+import org.winnow.app.cluster.StageReporter;
+import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.pipeline.kafka.ClusterRefusedException;
 import org.winnow.pipeline.kafka.ExactlyOnceRelay;
 import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.MetricsPublisher;
 import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.metrics.StageKind;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.rules.RulesFile;
 import org.winnow.scorer.stage.ModelScoring;
@@ -35,6 +39,9 @@ final class ScoreCommand implements Callable<Integer> {
 
     @picocli.CommandLine.Mixin
     KafkaConnectionOptions connection = new KafkaConnectionOptions();
+
+    @picocli.CommandLine.Mixin
+    MetricsPortOption metrics = new MetricsPortOption();
 
     @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to join.")
     String run;
@@ -70,6 +77,7 @@ final class ScoreCommand implements Callable<Integer> {
             settings = connection.settings();
             topics = new RunTopics(run);
             rules = rules();
+            metrics.validate();
         } catch (IllegalArgumentException e) {
             return fail(err, e.getMessage());
         } catch (IOException e) {
@@ -88,8 +96,9 @@ final class ScoreCommand implements Callable<Integer> {
                 scored.addAndGet(inputs);
             }
         };
-        try (ClusterScorer scorer = ClusterScorer.join(settings, topics, name, scoring, rules,
-                new SimpleMeterRegistry(), progress)) {
+        try (ProcessMetrics process = metrics.open(err, "score");
+                ClusterScorer scorer = ClusterScorer.join(settings, topics, name, scoring, rules, process.registry(),
+                        progress)) {
             Thread main = Thread.currentThread();
             Thread hook = new Thread(() -> {
                 scorer.stop();
@@ -102,11 +111,16 @@ final class ScoreCommand implements Callable<Integer> {
             Runtime.getRuntime().addShutdownHook(hook);
             err.println("winnow score: scorer " + name + " joined run " + run + " on " + connection.kafka);
             err.flush();
-            scorer.run();
+            try (MetricsPublisher snapshots = StageReporter.start(settings, topics, StageKind.SCORE, name,
+                    process.registry(), Clock.systemUTC(), StageReporter.PERIOD)) {
+                scorer.run();
+            }
             err.println("winnow score: scorer " + name + " stopped after " + scored.get() + " candidates");
             err.flush();
             return 0;
         } catch (ClusterRefusedException e) {
+            return fail(err, e.getMessage());
+        } catch (IOException e) {
             return fail(err, e.getMessage());
         }
     }

@@ -1,6 +1,5 @@
 package org.winnow.app;
 
-import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
 import java.io.IOException;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -9,9 +8,14 @@ import java.time.Duration;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicBoolean;
 import org.winnow.app.cluster.ClusterSink;
+import org.winnow.app.cluster.StageReporter;
+import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.pipeline.kafka.ClusterRefusedException;
 import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.MetricsPublisher;
+import org.winnow.pipeline.kafka.RunAdmin;
 import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.metrics.StageKind;
 import org.winnow.sink.Manifest;
 import org.winnow.sink.SinkOptions;
 import picocli.CommandLine.Command;
@@ -26,11 +30,17 @@ import picocli.CommandLine.Spec;
 @Command(name = "sink", mixinStandardHelpOptions = true, sortOptions = false,
         description = {"Write a cluster run's survivors from Kafka to DIR; ends when the run is complete."})
 final class SinkCommand implements Callable<Integer> {
+    /** The sink's name in its run's metric snapshots; a run has one sink. */
+    static final String SINK_INSTANCE = "sink";
+
     @Spec
     CommandSpec spec;
 
     @picocli.CommandLine.Mixin
     KafkaConnectionOptions connection = new KafkaConnectionOptions();
+
+    @picocli.CommandLine.Mixin
+    MetricsPortOption metrics = new MetricsPortOption();
 
     @Option(names = "--run", required = true, paramLabel = "ID", description = "The run to write.")
     String run;
@@ -54,6 +64,7 @@ final class SinkCommand implements Callable<Integer> {
             settings = connection.settings();
             topics = new RunTopics(run);
             options = new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5));
+            metrics.validate();
         } catch (IllegalArgumentException e) {
             return fail(err, e.getMessage());
         }
@@ -67,9 +78,15 @@ final class SinkCommand implements Callable<Integer> {
                 Thread.currentThread().interrupt();
             }
         }));
-        try {
-            Manifest m = ClusterSink.run(settings, topics, out, options, Clock.systemUTC(), new SimpleMeterRegistry(),
-                    running);
+        try (ProcessMetrics process = metrics.open(err, "sink")) {
+            try (RunAdmin admin = RunAdmin.connect(settings)) {
+                admin.requireRun(topics);
+            }
+            Manifest m;
+            try (MetricsPublisher snapshots = StageReporter.start(settings, topics, StageKind.SINK, SINK_INSTANCE,
+                    process.registry(), Clock.systemUTC(), StageReporter.PERIOD)) {
+                m = ClusterSink.run(settings, topics, out, options, Clock.systemUTC(), process.registry(), running);
+            }
             if (m == null) {
                 err.println("winnow sink: stopped; what was committed stays; rerun the same command to continue");
                 err.flush();

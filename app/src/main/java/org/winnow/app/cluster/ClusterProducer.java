@@ -69,10 +69,7 @@ public final class ClusterProducer {
      * @throws ClusterRefusedException when the broker or the run does not fit
      */
     public static SourceReport run(Settings s, MeterRegistry registry) throws Exception {
-        try (RunAdmin admin = RunAdmin.connect(s.kafka())) {
-            admin.createRun(s.run(), s.layout(), new RunDescriptor(s.run().runId(),
-                    Map.of("source", s.sourceIdentity())));
-        }
+        createRun(s);
         KryoCodec codec = WireTypes.stages().build();
         ShardProgress last = lastProgress(s.kafka(), s.run(), codec);
         if (last != null && last.report().done()) {
@@ -110,6 +107,18 @@ public final class ClusterProducer {
             SourceReport done = sequencer.report();
             commit(producer, s.run(), stamps, chunk, done.candidates(), done);
             return done;
+        }
+    }
+
+    /**
+     * Creates the run's topics and descriptor if needed; idempotent, and what {@link #run} does first.
+     *
+     * @throws ClusterRefusedException when the broker does not answer or the run exists with another source
+     */
+    public static void createRun(Settings s) {
+        try (RunAdmin admin = RunAdmin.connect(s.kafka())) {
+            admin.createRun(s.run(), s.layout(), new RunDescriptor(s.run().runId(),
+                    Map.of("source", s.sourceIdentity())));
         }
     }
 

@@ -18,6 +18,8 @@ import java.util.concurrent.atomic.AtomicReference;
 import org.apache.kafka.clients.consumer.ConsumerConfig;
 import org.apache.kafka.clients.consumer.ConsumerRecord;
 import org.apache.kafka.clients.consumer.KafkaConsumer;
+import org.apache.kafka.clients.consumer.OffsetAndMetadata;
+import org.apache.kafka.common.KafkaException;
 import org.apache.kafka.common.TopicPartition;
 import org.apache.kafka.common.serialization.StringDeserializer;
 import org.winnow.pipeline.Scored;
@@ -51,7 +53,18 @@ import org.winnow.sink.SurvivorSink;
  * transactionally.
  */
 public final class ClusterSink {
+    /** How often the sink reports its position to {@link #group}. */
+    private static final Duration REPORT_EVERY = Duration.ofSeconds(1);
+
     private ClusterSink() {
+    }
+
+    /**
+     * The consumer group under which the sink reports how far it has written, for lag monitoring only: the
+     * sink resumes from the offsets beside its files, never from this group.
+     */
+    public static String group(RunTopics run) {
+        return "winnow-" + run.runId() + "-sink";
     }
 
     /**
@@ -121,7 +134,9 @@ public final class ClusterSink {
         p.put(ConsumerConfig.MAX_POLL_RECORDS_CONFIG, 5000);
         WireHeaders scoredStamps = WireHeaders.forRunAndModel(run, model);
         WireHeaders planStamps = WireHeaders.forRun(run);
-        try (KafkaConsumer<String, Scored> scored = new KafkaConsumer<>(p, new StringDeserializer(),
+        Map<String, Object> withGroup = new HashMap<>(p);
+        withGroup.put(ConsumerConfig.GROUP_ID_CONFIG, group(run));
+        try (KafkaConsumer<String, Scored> scored = new KafkaConsumer<>(withGroup, new StringDeserializer(),
                 KryoSerde.of(codec, Scored.class));
                 KafkaConsumer<String, ShardProgress> plan = new KafkaConsumer<>(p, new StringDeserializer(),
                         KryoSerde.of(codec, ShardProgress.class))) {
@@ -141,6 +156,7 @@ public final class ClusterSink {
             TopicPartition planTp = new TopicPartition(run.plan(), ClusterProducer.SHARD);
             plan.assign(List.of(planTp));
             plan.seekToBeginning(List.of(planTp));
+            long reported = System.nanoTime();
             while (running.get()) {
                 for (ConsumerRecord<String, ShardProgress> r : plan.poll(Duration.ZERO)) {
                     planStamps.check(r.headers(), r.topic() + "-" + r.partition() + "@" + r.offset());
@@ -157,12 +173,37 @@ public final class ClusterSink {
                 }
                 position.release(sink);
                 SourceReport r = report.get();
-                if (r != null && r.done() && position.nextSeq == r.candidates()) {
+                boolean complete = r != null && r.done() && position.nextSeq == r.candidates();
+                if (complete || System.nanoTime() - reported > REPORT_EVERY.toNanos()) {
+                    report(scored, run, position.resumeOffsets(), complete);
+                    reported = System.nanoTime();
+                }
+                if (complete) {
                     sink.finish();
                     return Manifest.read(out.resolve(ScanFiles.MANIFEST));
                 }
             }
             return null;
+        }
+    }
+
+    /** Reports the sink's position to its monitoring group; a failed report only delays the lag figure. */
+    private static void report(KafkaConsumer<String, Scored> consumer, RunTopics run, Map<Integer, Long> at,
+            boolean last) {
+        Map<TopicPartition, OffsetAndMetadata> offsets = new HashMap<>();
+        at.forEach((partition, offset) -> offsets.put(new TopicPartition(run.scored(), partition),
+                new OffsetAndMetadata(offset)));
+        if (offsets.isEmpty()) {
+            return;
+        }
+        try {
+            if (last) {
+                consumer.commitSync(offsets, Duration.ofSeconds(5));
+            } else {
+                consumer.commitAsync(offsets, null);
+            }
+        } catch (KafkaException e) {
+            // Monitoring only: the files and their offset log are what the sink resumes from.
         }
     }
 

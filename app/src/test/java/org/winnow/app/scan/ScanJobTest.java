@@ -63,6 +63,7 @@ class ScanJobTest {
             assertEquals(c.candidates(), sum(text, "winnow_source_candidates_total"));
             assertEquals(c.scored(), sum(text, "winnow_scorer_verdicts_total"));
             assertEquals(c.scored(), sum(text, "winnow_sink_records_total"));
+            assertEquals(c.scored(), sum(text, "winnow_scorer_novelty_total"), "every scored candidate in one novelty bin");
             assertEquals(c.rejected(), sum(text, "winnow_scorer_verdicts_total\\{reason=\"[^\"]*\",verdict=\"reject\"\\}"));
             assertEquals(c.kept(), sum(text, "winnow_scorer_verdicts_total\\{reason=\"[^\"]*\",verdict=\"keep\"\\}"));
             for (var e : c.rejectedByReason().entrySet()) {

@@ -8,6 +8,7 @@ import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
 import org.winnow.pipeline.SourceReport;
 import org.winnow.pipeline.Verdict;
+import org.winnow.pipeline.metrics.MetricSnapshot;
 
 /**
  * The wire ids of every class that crosses a topic. An id, once shipped, is never reused for another
@@ -28,6 +29,7 @@ public final class WireTypes {
     public static final int REASON = 125;
     public static final int SHARD_PROGRESS = 130;
     public static final int SOURCE_REPORT = 131;
+    public static final int METRIC_SNAPSHOT = 140;
 
     private WireTypes() {
     }
@@ -57,5 +59,10 @@ public final class WireTypes {
                 .register(Reason.class, REASON)
                 .register(ShardProgress.class, SHARD_PROGRESS)
                 .register(SourceReport.class, SOURCE_REPORT, SourceReportSerializer::new);
+    }
+
+    /** The base types plus the metric snapshot, the only record of the metrics topic. */
+    public static KryoCodec.Builder metrics() {
+        return base().register(MetricSnapshot.class, METRIC_SNAPSHOT);
     }
 }

@@ -15,6 +15,16 @@ public final class ScorerMetrics {
     public static final String VERDICTS = "winnow.scorer.verdicts";
     /** Time to score one candidate: invariants, prediction and rules. */
     public static final String LATENCY = "winnow.scorer.latency";
+    /**
+     * Scored candidates per novelty bin, tagged {@value #TAG_BIN}: {@link #NOVELTY_BINS} equal bins over [0, 1].
+     * Plain counters rather than a Micrometer histogram, whose fixed buckets did not bin sub-unit values
+     * faithfully in our check (SnapshotTakerTest compares against a direct count).
+     */
+    public static final String NOVELTY = "winnow.scorer.novelty";
+    /** Tag: the upper bound of a novelty bin, "0.1" to "1.0". */
+    public static final String TAG_BIN = "bin";
+    /** Bins of the novelty histogram; bin i holds novelty in ((i - 1) / N, i / N], bin 0 also holds 0. */
+    public static final int NOVELTY_BINS = 10;
     /** Tag: keep or reject. */
     public static final String TAG_VERDICT = "verdict";
     /** Tag: the reason code. */
@@ -22,6 +32,7 @@ public final class ScorerMetrics {
 
     private final Map<Reason, Counter> verdicts = new EnumMap<>(Reason.class);
     private final Timer latency;
+    private final Counter[] novelty = new Counter[NOVELTY_BINS];
 
     public ScorerMetrics(MeterRegistry registry) {
         for (Reason r : Reason.values()) {
@@ -31,11 +42,31 @@ public final class ScorerMetrics {
                     .register(registry));
         }
         latency = Timer.builder(LATENCY).description("time to score one candidate").register(registry);
+        for (int i = 0; i < NOVELTY_BINS; i++) {
+            novelty[i] = Counter.builder(NOVELTY).description("candidates scored, by novelty bin")
+                    .tag(TAG_BIN, binLabel(i)).register(registry);
+        }
     }
 
     /** Counts one verdict that took {@code nanos} to reach. */
     public void scored(Scored s, long nanos) {
         verdicts.get(s.reason()).increment();
         latency.record(nanos, TimeUnit.NANOSECONDS);
+        novelty[bin(s.novelty())].increment();
+    }
+
+    /** The bin of a novelty in [0, 1]: bin i holds ((i - 1) / N, i / N], bin 0 also holds 0. */
+    public static int bin(double novelty) {
+        int bin = (int) Math.ceil(novelty * NOVELTY_BINS) - 1;
+        // The product can land a hair above an exact edge (0.3 * 10 = 3.0000000000000004).
+        if (bin > 0 && novelty <= bin / (double) NOVELTY_BINS) {
+            bin--;
+        }
+        return Math.max(0, Math.min(NOVELTY_BINS - 1, bin));
+    }
+
+    /** The {@value #TAG_BIN} tag of bin {@code i}: its upper bound. */
+    public static String binLabel(int i) {
+        return String.format(java.util.Locale.ROOT, "%.1f", (i + 1) / (double) NOVELTY_BINS);
     }
 }
