@@ -22,6 +22,7 @@ import picocli.CommandLine.Command;
             ProduceCommand.class,
             ScoreCommand.class,
             SinkCommand.class,
+            WatchCommand.class,
             ExportWeightsCommand.class,
             org.winnow.app.report.ReportCommand.class,
         })

@@ -73,6 +73,18 @@ class ClusterCommandsTest {
     }
 
     @Test
+    void watchRefusesARunThatDoesNotExistAndABadMetricsPortIsRefused() throws Exception {
+        Run watch = winnow("watch", "--kafka", broker.bootstrapServers(), "--run", "nobody", "--once");
+        assertEquals(2, watch.exit(), watch.err());
+        assertTrue(watch.err().startsWith("winnow watch: run 'nobody' has no topics"), watch.err());
+        assertEquals(1, watch.err().strip().lines().count());
+        Run sink = winnow("sink", "--kafka", broker.bootstrapServers(), "--run", "nobody", "--out",
+                dir.resolve("out").toString(), "--metrics-port", "70000");
+        assertEquals(2, sink.exit(), sink.err());
+        assertEquals("winnow sink: --metrics-port must be in 0..65535, got 70000", sink.err().strip());
+    }
+
+    @Test
     void badRunIdsAndMissingFilesAreRefusedBeforeConnecting() {
         Run badId = winnow("sink", "--kafka", broker.bootstrapServers(), "--run", "a.b", "--out", dir.toString());
         assertEquals(2, badId.exit());
