@@ -54,6 +54,10 @@ final class SinkCommand implements Callable<Integer> {
     @Option(names = "--lines-per-file", paramLabel = "N", description = "Survivor lines per file (default ${DEFAULT-VALUE}).")
     int linesPerFile = 100_000;
 
+    @Option(names = "--checkpoint-records", paramLabel = "N",
+            description = "Checkpoint at least every N records (default ${DEFAULT-VALUE}), and every 5 s.")
+    int checkpointRecords = 50_000;
+
     @Override
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
@@ -63,7 +67,7 @@ final class SinkCommand implements Callable<Integer> {
         try {
             settings = connection.settings();
             topics = new RunTopics(run);
-            options = new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5));
+            options = new SinkOptions(linesPerFile, rejects, checkpointRecords, Duration.ofSeconds(5));
             metrics.validate();
         } catch (IllegalArgumentException e) {
             return fail(err, e.getMessage());
