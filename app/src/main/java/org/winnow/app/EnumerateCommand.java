@@ -12,12 +12,14 @@ import java.util.concurrent.Callable;
 import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
+import org.winnow.app.scan.EnumeratedSpace;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.EnumerationCounts;
 import org.winnow.producer.Enumerator;
 import org.winnow.producer.RuleSet;
 import org.winnow.producer.ShardSpec;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
@@ -34,33 +36,8 @@ final class EnumerateCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--dim", paramLabel = "D", description = "Dimension of the Calabi-Yau, 1..4 (default ${DEFAULT-VALUE}).")
-    int dim = 3;
-
-    @Option(names = "--min-rows", paramLabel = "M", description = "Fewest rows (default 1).")
-    Integer minRows;
-
-    @Option(names = "--max-rows", paramLabel = "M", description = "Most rows (default min(5d, 16)).")
-    Integer maxRows;
-
-    @Option(names = "--max-cols", paramLabel = "K", description = "Most columns (default 24).")
-    Integer maxCols;
-
-    @Option(names = "--max-n", paramLabel = "N", description = "Largest projective factor P^N (default 2d+1).")
-    Integer maxN;
-
-    @Option(names = "--max-entry", paramLabel = "E", description = "Largest degree (default 2d+2).")
-    Integer maxEntry;
-
-    @Option(names = "--rules", paramLabel = "NAME",
-            description = "Rule set: base, split, lossless, short (default ${DEFAULT-VALUE}).")
-    String rules = "lossless";
-
-    @Option(names = "--no-products", description = "Drop block-diagonal matrices (products).")
-    boolean noProducts;
-
-    @Option(names = "--shard", paramLabel = "i/N", description = "Only shard i of N (0-based); shards are disjoint and cover the space.")
-    String shard;
+    @Mixin
+    SpaceOptions space = new SpaceOptions();
 
     @Option(names = "--count", description = "Print only counts: 'rows=R: N' per number of rows, then 'total: N'.")
     boolean count;
@@ -71,26 +48,17 @@ final class EnumerateCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
-        Bounds bounds;
-        RuleSet ruleSet;
-        ShardSpec shardSpec;
+        EnumeratedSpace es;
         try {
-            if (dim < 1 || dim > Bounds.MAX_DIM) {
-                throw new IllegalArgumentException("dim must be in 1.." + Bounds.MAX_DIM + ", got " + dim);
-            }
-            Bounds d = Bounds.complete(dim);
-            bounds = new Bounds(dim, or(minRows, d.minRows()), or(maxRows, d.maxRows()), or(maxCols, d.maxCols()),
-                    or(maxN, d.maxN()), or(maxEntry, d.maxEntry()));
-            ruleSet = RuleSet.byName(rules);
-            if (noProducts) {
-                ruleSet = ruleSet.withoutProducts();
-            }
-            shardSpec = shard == null ? ShardSpec.ALL : ShardSpec.parse(shard);
+            es = space.space();
         } catch (IllegalArgumentException e) {
             err.println("winnow enumerate: " + e.getMessage());
             err.flush();
             return WinnowCli.EXIT_BAD_INPUT;
         }
+        Bounds bounds = es.bounds();
+        RuleSet ruleSet = es.rules();
+        ShardSpec shardSpec = es.shard();
         Enumerator enumerator = new Enumerator();
         if (count) {
             EnumerationCounts c = enumerator.count(bounds, ruleSet, shardSpec);
@@ -138,10 +106,6 @@ final class EnumerateCommand implements Callable<Integer> {
             return 1;
         }
         return 0;
-    }
-
-    private static int or(Integer value, int fallback) {
-        return value == null ? fallback : value;
     }
 
     /** Count and rate on stderr, only when a person is watching it. */

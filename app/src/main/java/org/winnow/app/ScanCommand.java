@@ -12,6 +12,8 @@ import java.util.Locale;
 import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicReference;
+import org.winnow.app.scan.EnumeratedSpace;
+import org.winnow.app.scan.EnumerationSource;
 import org.winnow.app.scan.InputFileSource;
 import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.app.scan.ScanJob;
@@ -29,12 +31,14 @@ import org.winnow.sink.CrashHook;
 import org.winnow.sink.Manifest;
 import org.winnow.sink.SinkOptions;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code winnow scan}: the main job in one JVM. Candidates from an input file or an enumeration,
+ * {@code winnow scan}: the main job in one JVM. Candidates from an input file or straight from the
+ * producer's enumeration of a bounded space (the options of {@code enumerate}),
  * scored by N threads with a frozen model and the keep rules, survivors written to a directory that a
  * rerun continues.
  */
@@ -49,8 +53,12 @@ final class ScanCommand implements Callable<Integer> {
     @Option(names = "--model", required = true, paramLabel = "M", description = "The frozen model (.wnm).")
     Path model;
 
-    @Option(names = "--input", paramLabel = "F", description = "Configurations to scan, one a line.")
+    @Option(names = "--input", paramLabel = "F",
+            description = "Configurations to scan, one a line; or give bounds (the enumerate options below) instead.")
     Path input;
+
+    @Mixin
+    SpaceOptions space = new SpaceOptions();
 
     @Option(names = "--keep", paramLabel = "INVARIANT=LO..HI",
             description = "Keep range (repeatable): h11, h21 (predicted); chi, rows, cols, dim, blocks (exact). "
@@ -176,13 +184,28 @@ final class ScanCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             throw new StartupException(e.getMessage());
         }
+        if (input != null && space.given()) {
+            throw new StartupException("give either --input F or bounds (--dim, --max-rows, ...), not both");
+        }
+        CandidateSource source;
+        EnumeratedSpace enumerated = null;
         if (input == null) {
-            throw new StartupException("give --input F (a file of configurations)");
+            if (!space.given()) {
+                throw new StartupException("give --input F (a file of configurations) or bounds (--dim D and the "
+                        + "other enumerate options)");
+            }
+            try {
+                enumerated = space.space();
+            } catch (IllegalArgumentException e) {
+                throw new StartupException(e.getMessage());
+            }
+            source = new EnumerationSource(enumerated, EnumerationSource.COUNT_BUDGET, System::nanoTime);
+        } else {
+            if (!Files.isReadable(input)) {
+                throw new StartupException("--input " + input + ": no such readable file");
+            }
+            source = new InputFileSource(input);
         }
-        if (!Files.isReadable(input)) {
-            throw new StartupException("--input " + input + ": no such readable file");
-        }
-        CandidateSource source = new InputFileSource(input);
         ModelScoring scoring;
         try {
             scoring = ModelScoring.load(model);
@@ -192,7 +215,8 @@ final class ScanCommand implements Callable<Integer> {
                     model.toString().length()).replaceFirst("^:\\s*", "") : msg));
         }
         int workers = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        return new ScanJob.Settings(source, input, null, null, scoring, rules, out,
+        return new ScanJob.Settings(source, input, enumerated == null ? null : enumerated.key(),
+                enumerated == null ? null : enumerated.manifestValue(), scoring, rules, out,
                 new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5)),
                 new LocalPipeline.Options(workers, queue, Math.max(8 * queue, 64)),
                 strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP);

@@ -183,4 +183,80 @@ class ScanCommandTest {
         assertEquals(2, again.exit());
         assertTrue(again.err().contains("use a fresh directory"), again.err());
     }
+
+    /** The body of a survivor or reject file: its lines without the two header lines that carry the run id. */
+    private static List<String> body(Path dir, List<String> files) throws Exception {
+        List<String> all = new ArrayList<>();
+        for (String f : files) {
+            List<String> lines = Files.readAllLines(dir.resolve(f));
+            all.addAll(lines.subList(2, lines.size()));
+        }
+        return all;
+    }
+
+    @Test
+    void fromBoundsTheScanEqualsTheScanOfTheEnumeratedFile(@TempDir Path dir) throws Exception {
+        String[] space = {"--dim", "3", "--max-rows", "3", "--rules", "lossless"};
+        Path listing = dir.resolve("space.txt");
+        List<String> enumerate = new ArrayList<>(List.of("enumerate", "--out", listing.toString()));
+        enumerate.addAll(List.of(space));
+        assertEquals(0, WinnowCli.commandLine().execute(enumerate.toArray(String[]::new)));
+        List<String> common = List.of("--model", model.toString(), "--keep", "h11=2..5", "--keep", "chi=-150..0",
+                "--min-confidence", "0.5", "--novelty", "0.9", "--threads", "2", "--rejects", "--lines-per-file", "40");
+
+        List<String> fromBounds = new ArrayList<>(common);
+        fromBounds.addAll(List.of(space));
+        fromBounds.addAll(List.of("--out", dir.resolve("bounds").toString()));
+        Run b = scan(fromBounds.toArray(String[]::new));
+        assertEquals(0, b.exit(), b.err());
+        List<String> fromFile = new ArrayList<>(common);
+        fromFile.addAll(List.of("--input", listing.toString(), "--out", dir.resolve("file").toString()));
+        Run f = scan(fromFile.toArray(String[]::new));
+        assertEquals(0, f.exit(), f.err());
+
+        Manifest mb = Manifest.read(dir.resolve("bounds").resolve(ScanFiles.MANIFEST));
+        Manifest mf = Manifest.read(dir.resolve("file").resolve(ScanFiles.MANIFEST));
+        assertTrue(mb.complete());
+        long lines = Files.readAllLines(listing).size();
+        assertEquals(lines, mb.counts().candidates());
+        assertEquals(mf.counts(), mb.counts());
+        assertEquals(mf.survivorFiles(), mb.survivorFiles());
+        assertEquals(body(dir.resolve("file"), mf.survivorFiles()), body(dir.resolve("bounds"), mb.survivorFiles()));
+        assertEquals(body(dir.resolve("file"), mf.rejectFiles()), body(dir.resolve("bounds"), mb.rejectFiles()));
+        // Every enumerated matrix is scored exactly once: survivors and rejects together are the listing.
+        List<String> seen = new ArrayList<>();
+        for (String line : body(dir.resolve("bounds"), mb.survivorFiles())) {
+            seen.add(SurvivorLine.parse(line).config());
+        }
+        for (String line : body(dir.resolve("bounds"), mb.rejectFiles())) {
+            seen.add(RejectLine.parse(line).config());
+        }
+        assertEquals(Files.readAllLines(listing).stream().map(l -> l.split("\t")[0]).sorted().toList(),
+                seen.stream().sorted().toList());
+
+        assertTrue(mb.source().startsWith("enumeration dim 3, rows 1..3"), mb.source());
+        assertEquals(Map.of("dim", 3, "minRows", 1, "maxRows", 3, "maxCols", 24, "maxN", 7, "maxEntry", 8,
+                "ruleSet", "lossless", "excludes", List.of("C", "Q3p", "Ek"), "shard", "0/1"), mb.bounds());
+        assertEquals(mf.rules(), mb.rules());
+        assertTrue(mf.bounds() == null);
+        assertFalse(mb.runId().equals(mf.runId()), "a file and an enumeration are different scans");
+    }
+
+    @Test
+    void boundsAndAnInputFileTogetherAreOneLineAndExitTwo(@TempDir Path dir) {
+        Run both = scan("--model", model.toString(), "--input", input.file().toString(), "--dim", "3", "--out",
+                dir.resolve("a").toString());
+        assertEquals(2, both.exit());
+        assertEquals("winnow scan: give either --input F or bounds (--dim, --max-rows, ...), not both\n", both.err());
+        assertFalse(Files.exists(dir.resolve("a")));
+
+        Run neither = scan("--model", model.toString(), "--out", dir.resolve("b").toString());
+        assertEquals(2, neither.exit());
+        assertEquals(1, neither.err().lines().count(), neither.err());
+        assertTrue(neither.err().startsWith("winnow scan: give --input F"), neither.err());
+
+        Run bad = scan("--model", model.toString(), "--max-rows", "17", "--out", dir.resolve("c").toString());
+        assertEquals(2, bad.exit());
+        assertEquals("winnow scan: max-rows 17 exceeds the supported 16\n", bad.err());
+    }
 }

@@ -1,6 +1,8 @@
 package org.winnow.producer;
 
 import java.util.List;
+import java.util.concurrent.CancellationException;
+import java.util.function.BooleanSupplier;
 import java.util.function.Consumer;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
@@ -41,9 +43,25 @@ public final class Enumerator {
 
     /** Counts what {@link #run} would emit, per number of rows. */
     public EnumerationCounts count(Bounds bounds, RuleSet rules, ShardSpec shard) {
-        Checks.requireArgument(bounds != null && rules != null && shard != null, "bounds, rules and shard are required");
+        return count(bounds, rules, shard, () -> false);
+    }
+
+    /**
+     * Counts what {@link #run} would emit, giving up as soon as {@code stop} says so (it is asked at
+     * every counted matrix), for a count that runs beside a scan and is no longer wanted when the scan ends.
+     *
+     * @throws CancellationException when stopped before the end
+     */
+    public EnumerationCounts count(Bounds bounds, RuleSet rules, ShardSpec shard, BooleanSupplier stop) {
+        Checks.requireArgument(bounds != null && rules != null && shard != null && stop != null,
+                "bounds, rules, shard and stop are required");
         long[] byRows = new long[bounds.maxRows() + 1];
-        walk(bounds, rules, shard, (n, q, m, k, flags) -> byRows[m]++);
+        walk(bounds, rules, shard, (n, q, m, k, flags) -> {
+            if (stop.getAsBoolean()) {
+                throw new CancellationException("count stopped after " + java.util.Arrays.stream(byRows).sum());
+            }
+            byRows[m]++;
+        });
         return new EnumerationCounts(byRows);
     }
 

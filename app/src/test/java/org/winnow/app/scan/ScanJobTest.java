@@ -23,6 +23,10 @@ import org.junit.jupiter.api.io.TempDir;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.local.PipelineException;
+import org.winnow.producer.Bounds;
+import org.winnow.producer.Enumerator;
+import org.winnow.producer.RuleSet;
+import org.winnow.producer.ShardSpec;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.stage.ModelScoring;
 import org.winnow.sink.CrashHook;
@@ -33,6 +37,18 @@ class ScanJobTest {
     private static ScanJob.Settings settings(ScanFixtures.Input in, Path out) {
         return new ScanJob.Settings(new InputFileSource(in.file()), in.file(), null, null,
                 new ModelScoring(ScanFixtures.model()), KeepRules.of(List.of("h11=2..5", "chi=-150..0"), 0.5, 0.9), out,
+                new SinkOptions(30, true, 40, Duration.ofSeconds(1)), new LocalPipeline.Options(2, 8, 64),
+                BadInputPolicy.SKIP);
+    }
+
+    /** The three-folds with at most three rows under the lossless rules: small, and scanned in well under a second. */
+    static final EnumeratedSpace SMALL_SPACE = new EnumeratedSpace(Bounds.complete(3).withRows(1, 3), RuleSet.LOSSLESS,
+            ShardSpec.ALL);
+
+    private static ScanJob.Settings boundsSettings(Path out) {
+        return new ScanJob.Settings(new EnumerationSource(SMALL_SPACE, EnumerationSource.COUNT_BUDGET, System::nanoTime),
+                null, SMALL_SPACE.key(), SMALL_SPACE.manifestValue(), new ModelScoring(ScanFixtures.model()),
+                KeepRules.of(List.of("h11=2..5", "chi=-150..0"), 0.5, 0.9), out,
                 new SinkOptions(30, true, 40, Duration.ofSeconds(1)), new LocalPipeline.Options(2, 8, 64),
                 BadInputPolicy.SKIP);
     }
@@ -87,38 +103,72 @@ class ScanJobTest {
     @Test
     void abortedWithTheRealModelAndRerunGivesTheSameFiles(@TempDir Path dir) throws Exception {
         ScanFixtures.Input in = ScanFixtures.input(dir, 21, 500);
+        abortRerunAndCompare(dir, out -> settings(in, out), 5);
+    }
+
+    @Test
+    void abortedFromBoundsAndRerunGivesTheSameFiles(@TempDir Path dir) throws Exception {
+        Manifest m = abortRerunAndCompare(dir, ScanJobTest::boundsSettings, 11);
+        assertEquals(new Enumerator().count(SMALL_SPACE.bounds(), SMALL_SPACE.rules(), SMALL_SPACE.shard()).total(),
+                m.counts().candidates());
+        assertEquals(0, m.counts().duplicates());
+    }
+
+    /**
+     * Runs the scan once uninterrupted, then aborts it at ten random durable steps in another directory and
+     * reruns it to the end there: counts, file names and every committed file must equal the uninterrupted run.
+     */
+    private static Manifest abortRerunAndCompare(Path dir, java.util.function.Function<Path, ScanJob.Settings> settings,
+            long seed) throws Exception {
         Path ref = dir.resolve("ref");
-        ScanJob.run(settings(in, ref), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT), Clock.systemUTC(),
+        ScanJob.run(settings.apply(ref), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT), Clock.systemUTC(),
                 CrashHook.NONE, s -> {});
         Path resumed = dir.resolve("resumed");
-        java.util.SplittableRandom rnd = new java.util.SplittableRandom(5);
+        java.util.SplittableRandom rnd = new java.util.SplittableRandom(seed);
         int aborts = 0;
         for (int i = 0; i < 10; i++) {
             int at = 1 + rnd.nextInt(25);
             int[] calls = {0};
             try {
-                ScanJob.run(settings(in, resumed), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT), Clock.systemUTC(),
-                        step -> {
+                ScanJob.run(settings.apply(resumed), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT),
+                        Clock.systemUTC(), step -> {
                             if (++calls[0] == at) {
                                 throw new IllegalStateException("crash before " + step);
                             }
                         }, s -> {});
-            } catch (PipelineException e) {
+            } catch (PipelineException | IllegalStateException e) {
+                // A crash inside the pipeline, or while the sink opens the directory (its first checkpoint).
                 aborts++;
             }
         }
-        ScanJob.Outcome done = ScanJob.run(settings(in, resumed), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT),
+        ScanJob.Outcome done = ScanJob.run(settings.apply(resumed), new PrometheusMeterRegistry(PrometheusConfig.DEFAULT),
                 Clock.systemUTC(), CrashHook.NONE, s -> {});
         assertTrue(aborts >= 5, "aborts " + aborts);
         Manifest a = Manifest.read(ref.resolve("manifest.json"));
+        assertTrue(a.complete() && done.manifest().complete());
         assertEquals(a.counts(), done.manifest().counts());
         assertEquals(a.survivorFiles(), done.manifest().survivorFiles());
+        assertEquals(a.rejectFiles(), done.manifest().rejectFiles());
+        assertTrue(a.survivorFiles().size() > 1, "a single file does not test the roll-over");
         for (String f : a.survivorFiles()) {
             assertEquals(Files.readString(ref.resolve(f)), Files.readString(resumed.resolve(f)), f);
         }
         for (String f : a.rejectFiles()) {
             assertEquals(Files.readString(ref.resolve(f)), Files.readString(resumed.resolve(f)), f);
         }
+        return done.manifest();
+    }
+
+    @Test
+    void theSizeOfASpaceIsItsCountWithinTheBudgetAndUnknownPastIt() {
+        long total = new Enumerator().count(SMALL_SPACE.bounds(), SMALL_SPACE.rules(), SMALL_SPACE.shard()).total();
+        assertEquals(OptionalLong.of(total),
+                new EnumerationSource(SMALL_SPACE, Duration.ofHours(1), System::nanoTime).size());
+        // A clock that moves a millisecond at every reading runs out of a 5 ms budget long before the end.
+        long[] now = {0};
+        EnumerationSource slow = new EnumerationSource(SMALL_SPACE, Duration.ofMillis(5), () -> now[0] += 1_000_000);
+        assertEquals(OptionalLong.empty(), slow.size());
+        assertTrue(total > 10, "the space is too small to test the budget: " + total);
     }
 
     @Test
