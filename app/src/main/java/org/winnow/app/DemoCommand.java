@@ -18,9 +18,10 @@ import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 
 /**
- * {@code winnow demo}: the main job on the built-in demo data. It enumerates the three-fold space
- * with the producer, scans it with the shipped frozen model and rules file, and summarises the
- * survivors. It is the same code path a researcher runs with {@code enumerate} and {@code scan}.
+ * {@code winnow demo}: the main job on the built-in demo data. It scans the three-fold space straight
+ * from the producer's enumeration with the shipped frozen model and rules file, and summarises the
+ * survivors. It is the same code path a researcher runs with {@code scan --dim 3}; no candidates file
+ * is written, because the scan's survivors and rejects already name every matrix of the space.
  */
 @Command(name = "demo", mixinStandardHelpOptions = true,
         description = "Scan the built-in demo space (all three-fold configuration matrices, rule set lossless) "
@@ -54,23 +55,17 @@ final class DemoCommand implements Callable<Integer> {
             }
         }
         Files.createDirectories(out);
-        Path candidates = out.resolve("candidates.txt");
         Path scanDir = out.resolve("scan");
-        o.println("winnow demo: step 1/2, enumerating every three-fold configuration matrix (rule set lossless) into " + candidates);
+        o.println("winnow demo: scanning every three-fold configuration matrix (rule set lossless) as the producer "
+                + "enumerates it, with model " + model + " and rules " + rules);
         o.flush();
-        int rc = run("enumerate", "--dim", "3", "--out", candidates.toString());
-        if (rc != 0) {
-            return rc;
-        }
-        o.println("winnow demo: step 2/2, scanning with model " + model + " and rules " + rules);
-        o.flush();
-        List<String> scan = new ArrayList<>(List.of("scan", "--model", model.toString(), "--input", candidates.toString(),
-                "--rules-file", rules.toString(), "--out", scanDir.toString(), "--rejects"));
+        List<String> scan = new ArrayList<>(List.of("scan", "--model", model.toString(), "--dim", "3", "--rules",
+                "lossless", "--rules-file", rules.toString(), "--out", scanDir.toString(), "--rejects"));
         if (threads != null) {
             scan.add("--threads");
             scan.add(threads.toString());
         }
-        rc = run(scan.toArray(String[]::new));
+        int rc = run(scan.toArray(String[]::new));
         if (rc != 0) {
             return rc;
         }
