@@ -21,6 +21,8 @@ import org.winnow.app.scan.StatusPrinter;
 import org.winnow.pipeline.BadInputException;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.CandidateSource;
+import org.winnow.pipeline.KeyLimitException;
+import org.winnow.pipeline.SeenKeys;
 import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.local.PipelineException;
 import org.winnow.scorer.rules.KeepRules;
@@ -125,6 +127,11 @@ final class ScanCommand implements Callable<Integer> {
             if (cause instanceof BadInputException) {
                 return fail(err, input + " " + cause.getMessage() + " (--strict)");
             }
+            if (cause instanceof KeyLimitException) {
+                err.println("winnow scan: stopped: " + cause.getMessage() + "; what was committed stays, rerun to continue");
+                err.flush();
+                return 1;
+            }
             err.println("winnow scan: stopped: " + cause);
             err.println("winnow scan: what was committed stays; rerun the same command to continue");
             err.flush();
@@ -205,6 +212,14 @@ final class ScanCommand implements Callable<Integer> {
                 throw new StartupException("--input " + input + ": no such readable file");
             }
             source = new InputFileSource(input);
+            // The duplicate check holds every distinct key; refuse a file that may not fit now rather
+            // than stop hours into the run. Its line count bounds its distinct candidates from above.
+            long lines = source.size().orElse(0);
+            long limit = SeenKeys.limitForThisHeap();
+            if (lines > limit) {
+                throw new StartupException("--input " + input + ": " + String.format(Locale.ROOT, "%,d lines, ", lines)
+                        + KeyLimitException.message(limit));
+            }
         }
         ModelScoring scoring;
         try {

@@ -1,10 +1,8 @@
 package org.winnow.pipeline;
 
 import java.util.ArrayList;
-import java.util.HashSet;
 import java.util.List;
 import java.util.Objects;
-import java.util.Set;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.metrics.SourceMetrics;
@@ -34,7 +32,7 @@ public final class Sequencer implements SourceListener {
     private final BadInputPolicy policy;
     private final Downstream downstream;
     private final SourceMetrics metrics;
-    private final Set<String> seen;
+    private final SeenKeys seen;
     private final List<BadInput> listed = new ArrayList<>();
     private long items;
     private long duplicates;
@@ -57,13 +55,24 @@ public final class Sequencer implements SourceListener {
      */
     public Sequencer(long resumeFrom, int shard, BadInputPolicy policy, Downstream downstream, SourceMetrics metrics,
             boolean dedup) {
+        this(resumeFrom, shard, policy, downstream, metrics, dedup ? SeenKeys.limitForThisHeap() : 0);
+    }
+
+    /**
+     * @param maxKeys the most distinct candidates the duplicate check holds ({@link SeenKeys}); beyond it
+     *                {@link #item} throws {@link KeyLimitException}. 0 for a source whose items are distinct by
+     *                construction: then no set of seen keys is kept and nothing is counted as a duplicate
+     */
+    public Sequencer(long resumeFrom, int shard, BadInputPolicy policy, Downstream downstream, SourceMetrics metrics,
+            long maxKeys) {
         Checks.requireArgument(resumeFrom >= 0, "resume point must be non-negative: %s", resumeFrom);
         this.resumeFrom = resumeFrom;
         this.shard = shard;
         this.policy = Objects.requireNonNull(policy, "policy");
         this.downstream = Objects.requireNonNull(downstream, "downstream");
         this.metrics = Objects.requireNonNull(metrics, "metrics");
-        this.seen = dedup ? new HashSet<>() : null;
+        Checks.requireArgument(maxKeys >= 0, "key limit must be non-negative: %s", maxKeys);
+        this.seen = maxKeys > 0 ? new SeenKeys(maxKeys) : null;
     }
 
     @Override
