@@ -217,8 +217,8 @@ final class ScanCommand implements Callable<Integer> {
             long lines = source.size().orElse(0);
             long limit = SeenKeys.limitForThisHeap();
             if (lines > limit) {
-                throw new StartupException("--input " + input + ": " + String.format(Locale.ROOT, "%,d lines, ", lines)
-                        + KeyLimitException.message(limit));
+                throw new StartupException("--input " + input + ": " + KeyLimitException.message(
+                        String.format(Locale.ROOT, "%,d lines may hold more than", lines), limit));
             }
         }
         ModelScoring scoring;

@@ -10,15 +10,18 @@ public final class KeyLimitException extends RuntimeException {
     private final long limit;
 
     public KeyLimitException(long limit) {
-        super(message(limit));
+        super(message("more than", limit));
         this.limit = limit;
     }
 
-    /** The one-line explanation for a source with more than {@code limit} distinct candidates. */
-    public static String message(long limit) {
-        return String.format(java.util.Locale.ROOT, "more than %,d distinct candidates, the most whose duplicate check "
-                + "fits in half of this heap (-Xmx %,d MB); raise -Xmx (./winnow reads WINNOW_JAVA_OPTS) or split the input",
-                limit, Runtime.getRuntime().maxMemory() >> 20);
+    /**
+     * The one-line explanation for a source with (or that may have, as {@code what} says) more distinct
+     * candidates than {@code limit}.
+     */
+    public static String message(String what, long limit) {
+        return String.format(java.util.Locale.ROOT, "%s %,d distinct candidates, the most whose duplicate check fits "
+                + "in half of this heap (-Xmx %,d MB); raise -Xmx (./winnow reads WINNOW_JAVA_OPTS) or split the input",
+                what, limit, Runtime.getRuntime().maxMemory() >> 20);
     }
 
     /** The number of distinct candidates that was exceeded. */
