@@ -57,12 +57,14 @@ def load_model(path):
     h11 = np.asarray(w["reference"]["h11"], dtype=np.int64)
     estimate = np.zeros(len(h11), dtype=np.int64)
     if model["anchored"]:
+        # The reference's anchors as winnow computed them (the Hodge engine's where a first page is
+        # unsettled); where the first page is settled ours must agree.
+        estimate = np.asarray(w["reference"]["h11_estimate"], dtype=np.int64)
         for i, text in enumerate(w["reference"]["configs"]):
             n, q, _ = parse(text + "\t0")
-            estimate[i] = h11_estimate(n, q)[0]
-        exported = np.asarray(w["reference"]["h11_estimate"], dtype=np.int64)
-        if not np.array_equal(estimate, exported):
-            sys.exit(f"numpy_scorer: {path}: the h11 estimate disagrees with the exported one")
+            mine, _terms, settled = h11_estimate(n, q)
+            if settled and mine != estimate[i]:
+                sys.exit(f"numpy_scorer: {path}: the h11 estimate of {text} disagrees with the exported one")
     # What each reference point votes for: its correction to the estimate (or h11 when unanchored).
     residual = h11 - estimate
     model["residuals"] = np.unique(residual)
@@ -92,11 +94,20 @@ def h11_estimate(n, q):
     m + eulerOne + max(0, conormalTwo - eulerTwo) with eulerOne/eulerTwo = sum_i (n_i+1) E1 h^1/h^2 of
     O_X(-J_i) and conormalTwo = sum_j E1 h^2 of O_X(-q_j); a depth-first search over column subsets S
     with the same cut as winnow's (rows holding both an included and an excluded column are stuck).
+    Returns (estimate, terms, settled); settled as H11Estimator.settled (no later differential can
+    reach the entries read, none where the derivation assumes zero). winnow asks its Hodge engine
+    where a page is unsettled; this port does not, so such candidates are deferred (-1).
     """
     m, k = len(n), len(q[0])
     sums = [0] * m
     excl = [0] * m
     acc = [0, 0, 0]  # eulerOne, eulerTwo, conormalTwo
+    pmin = {}  # (bundle, t) -> smallest Koszul column p of a nonzero entry; bundles: rows, then m + j
+    pmax = {}
+
+    def seen(b, t, p):
+        pmin[b, t] = min(pmin.get((b, t), p), p)
+        pmax[b, t] = max(pmax.get((b, t), p), p)
 
     def binom(top, bottom):
         r = 1
@@ -132,19 +143,33 @@ def h11_estimate(n, q):
                 gap_deg += n[r]
         if gap == 0:
             t = full_deg - size
-            if t in (1, 2):
+            if 0 <= t <= 3:
                 for i in range(m):
                     if sums[i] >= n[i] + 1:
-                        acc[t - 1] += (n[i] + 1) * full_product(i) * binom(sums[i], n[i])
+                        seen(i, t, size)
+                        if t in (1, 2):
+                            acc[t - 1] += (n[i] + 1) * full_product(i) * binom(sums[i], n[i])
         elif gap == 1:
             t = full_deg + gap_deg - size
-            if t in (1, 2):
+            if 0 <= t <= 3:
                 for i in range(m):
                     if sums[i] == n[i]:
-                        acc[t - 1] += (n[i] + 1) * full_product(i)
-        if gap == 0 and size > 0 and full_deg - size == 1:
-            acc[2] += size * full_product(-1)
-        if size > 0 and full_deg + gap_deg == size + 2:
+                        seen(i, t, size)
+                        if t in (1, 2):
+                            acc[t - 1] += (n[i] + 1) * full_product(i)
+                        break
+                    if 1 <= sums[i] < n[i]:
+                        break
+        if gap == 0 and size > 0:
+            t = full_deg - size + 1
+            if 1 <= t <= 3:
+                for j in range(k):
+                    if subset >> j & 1:
+                        seen(m + j, t, size - 1)
+                if t == 2:
+                    acc[2] += size * full_product(-1)
+        t = full_deg + gap_deg - size
+        if size > 0 and 1 <= t <= 3:
             for j in range(k):
                 if subset >> j & 1:
                     d = 1
@@ -156,7 +181,10 @@ def h11_estimate(n, q):
                             d = 0
                             break
                         d *= binom(a - 1, n[r])
-                    acc[2] += d
+                    if d:
+                        seen(m + j, t, size)
+                        if t == 2:
+                            acc[2] += d
 
     def search(j, subset, size, gap_rows):
         if gap_rows and not can_contribute(j, subset, gap_rows):
@@ -182,7 +210,15 @@ def h11_estimate(n, q):
             sums[r] -= q[r][j]
 
     search(0, 0, 0, 0)
-    return m + acc[0] + max(0, acc[2] - acc[1]), acc
+    settled = True
+    for b in range(m + k):
+        first = 0 if b < m else 1
+        if (b, first) in pmax:
+            settled = False
+        for t in range(first, 3):
+            if (b, t) in pmax and (b, t + 1) in pmin and pmin[b, t + 1] < pmax[b, t]:
+                settled = False
+    return m + acc[0] + max(0, acc[2] - acc[1]), acc, settled
 
 
 def relu(x):
@@ -294,13 +330,18 @@ def vote(model, e, search):
 
 
 def score_block(model, lines, search):
-    """Predicted h11 of every line, in the lines' order."""
+    """Predicted h11 of every line, in the lines' order; -1 where the first page is unsettled (deferred)."""
     groups = {}
+    deferred = []
     for i, line in enumerate(lines):
         n, q, chi = parse(line)
-        est, terms = h11_estimate(n, q) if model["anchored"] else (0, [0, 0, 0])
+        est, terms, settled = h11_estimate(n, q) if model["anchored"] else (0, [0, 0, 0], True)
+        if not settled:
+            deferred.append(i)
+            continue
         groups.setdefault((len(n), len(q[0])), []).append((i, n, q, chi, est, terms))
     out = np.empty(len(lines), dtype=np.int64)
+    out[deferred] = -1
     for members in groups.values():
         order = np.fromiter((t[0] for t in members), dtype=np.int64, count=len(members))
         n = np.array([t[1] for t in members], dtype=np.int64)

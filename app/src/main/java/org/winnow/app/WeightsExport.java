@@ -5,7 +5,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.cohomology.H11Estimator;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.Calibration;
 import org.winnow.scorer.model.FrozenModel;
@@ -108,7 +108,7 @@ final class WeightsExport {
         ArrayNode configs = ref.putArray("configs");
         ArrayNode emb = ref.putArray("embeddings");
         ArrayNode estimates = ref.putArray("h11_estimate");
-        H11Estimator estimator = new H11Estimator();
+        RefinedH11Estimator estimator = new RefinedH11Estimator();
         double[] e = r.embeddings();
         for (int i = 0; i < r.size(); i++) {
             h11.add(r.h11(i));

@@ -11,6 +11,7 @@ import java.util.function.ToIntFunction;
 import java.util.stream.LongStream;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.cohomology.H11Estimator;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.FrozenModel;
@@ -63,6 +64,9 @@ public final class ModelBaselines {
         scores.add(score("random forest (Smile, 300 trees), raw matrix + m, K, chi", test, forest(train, seed)));
         H11Estimator estimator = new H11Estimator();
         scores.add(score("first-page h11 estimate alone (no labels)", test, e -> estimator.estimate(e.config())));
+        RefinedH11Estimator refined = new RefinedH11Estimator();
+        scores.add(score("refined estimate alone (engine where unsettled; no labels)", test,
+                e -> refined.estimate(e.config())));
         for (boolean anchored : new boolean[] {false, true}) {
             Architecture shape = Architecture.defaults(9);
             TrainingOptions options = TrainingOptions.defaults(9, seed)

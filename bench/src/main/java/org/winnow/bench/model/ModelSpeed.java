@@ -35,7 +35,7 @@ public final class ModelSpeed {
         List<LabelledExample> rows = ModelBaselines.load(reference);
         Configuration[] configs = rows.stream().map(LabelledExample::config).toArray(Configuration[]::new);
         long[] chis = rows.stream().mapToLong(LabelledExample::chi).toArray();
-        org.winnow.geometry.cohomology.H11Estimator estimator = new org.winnow.geometry.cohomology.H11Estimator();
+        org.winnow.geometry.hodge.RefinedH11Estimator estimator = new org.winnow.geometry.hodge.RefinedH11Estimator();
         Predictor p = model.newPredictor();
         long sink = 0;
         for (int pass = 0; pass < 2; pass++) { // the first pass warms up

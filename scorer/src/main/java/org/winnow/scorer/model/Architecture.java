@@ -12,7 +12,8 @@ import org.winnow.geometry.Checks;
  * dense layers shared by all nodes. Sum- and max-pooling over each side, concatenated with exact
  * global features, feed a two-layer readout to the embedding's coordinates. In an {@code anchored}
  * network (the default for real labels) the last coordinate is not learned: it is the first-page
- * estimate of h11 ({@code H11Estimator}) times
+ * estimate of h11 ({@code RefinedH11Estimator}: the first-page estimate, or the Hodge engine's value
+ * where the first page is not settled) times
  * {@link #ANCHOR_SCALE}, so two configurations whose estimates differ by one already lie a contrastive
  * margin apart, and a candidate whose estimate no reference point shares is far from all of them (novel)
  * however the learned coordinates fall; the kNN vote then votes on corrections to that estimate

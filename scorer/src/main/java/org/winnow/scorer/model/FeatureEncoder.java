@@ -1,7 +1,7 @@
 package org.winnow.scorer.model;
 
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.cohomology.H11Estimator;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Turns a configuration (and its exact chi) into the network's input graph: normalised row, column and
@@ -101,7 +101,7 @@ final class FeatureEncoder {
     }
 
     /** Writes the raw global features and returns the first-page h11 estimate. */
-    static int globalFeatures(Configuration c, long chi, H11Estimator estimator, double[] out, int off) {
+    static int globalFeatures(Configuration c, long chi, RefinedH11Estimator estimator, double[] out, int off) {
         int nnz = 0;
         int big = 0;
         int sumN = 0;

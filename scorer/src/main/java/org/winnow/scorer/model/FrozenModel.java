@@ -5,7 +5,7 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.cohomology.H11Estimator;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * A trained, immutable similarity model: architecture, weights, input normalisation, the reference
@@ -53,7 +53,7 @@ public final class FrozenModel {
         }
         // What each reference point votes for: its exact h11 minus its first-page estimate (anchored), or
         // its h11 itself.
-        H11Estimator estimator = new H11Estimator();
+        RefinedH11Estimator estimator = new RefinedH11Estimator();
         int[] residual = new int[reference.size()];
         for (int i = 0; i < reference.size(); i++) {
             int estimate = architecture.anchored()

@@ -22,7 +22,7 @@ import java.util.HexFormat;
  */
 final class ModelFile {
     static final byte[] MAGIC = "WNMODEL\u0000".getBytes(StandardCharsets.US_ASCII);
-    static final int VERSION = 2;
+    static final int VERSION = 3;
     static final int HEADER = MAGIC.length + 4 + 8 + 32;
 
     private ModelFile() {}

@@ -3,7 +3,7 @@ package org.winnow.scorer.model;
 import java.util.List;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.cohomology.H11Estimator;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Affine input normalisation, {@code (x - mean) * scale}, fitted on the training examples so every raw
@@ -41,7 +41,7 @@ public record Normalisation(double[] rowMean, double[] rowScale, double[] colMea
         Moments cols = new Moments(Architecture.COL_FEATURES);
         Moments globals = new Moments(Architecture.GLOBAL_FEATURES);
         double[] buf = new double[Math.max(Architecture.GLOBAL_FEATURES, Architecture.ROW_FEATURES)];
-        H11Estimator estimator = new H11Estimator();
+        RefinedH11Estimator estimator = new RefinedH11Estimator();
         for (int i = 0; i < configs.size(); i++) {
             Configuration c = configs.get(i);
             for (int r = 0; r < c.rows(); r++) {

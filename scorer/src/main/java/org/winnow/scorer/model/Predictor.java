@@ -1,6 +1,7 @@
 package org.winnow.scorer.model;
 
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Scores candidates against one {@link FrozenModel}: embed, find the nearest reference points, vote,
@@ -10,7 +11,7 @@ import org.winnow.geometry.Configuration;
  *
  * <p>The vote weighs each of the k nearest reference points as {@link Calibration} describes. What a
  * neighbour votes for is a correction: its exact h11 minus its own first-page estimate
- * ({@code H11Estimator}); the prediction is the candidate's estimate plus the winning correction, and the
+ * ({@code RefinedH11Estimator}); the prediction is the candidate's estimate plus the winning correction, and the
  * confidence is that correction's share of the total weight. So neighbours teach where the estimate
  * fails, and a candidate of an h11 that no reference point has is still predicted from its own
  * estimate (and flagged by its novelty, since the embedding's anchor coordinate keeps it away from the
@@ -81,6 +82,10 @@ public final class Predictor {
         int nk = Math.min(cal.noveltyK(), found);
         novelty = cal.novelty(distances[nk - 1]);
         estimate = model.architecture().anchored() ? ws.h11Estimate : 0;
+        if (model.architecture().anchored() && ws.estimator.source() == RefinedH11Estimator.Source.ENGINE_EXACT) {
+            confidence = 1.0; // proved by the Hodge engine: nothing for the neighbours to correct
+            return estimate;
+        }
         return estimate + model.residual(winner);
     }
 
@@ -137,6 +142,11 @@ public final class Predictor {
             return h31 >= 0 ? new int[] {h11, label[1], Math.toIntExact(h31)} : null;
         }
         return null;
+    }
+
+    /** How the last candidate's anchor was found (first page, or the Hodge engine where it was unsettled). */
+    public RefinedH11Estimator.Source estimateSource() {
+        return ws.estimator.source();
     }
 
     /**

@@ -79,7 +79,7 @@ class ModelFileTest {
         byte[] bad = good.clone();
         ByteBuffer.wrap(bad).putInt(ModelFile.MAGIC.length, 7);
         Files.write(file, bad);
-        assertEquals(file + ": unsupported model format version 7 (this build reads version 2)", refusal());
+        assertEquals(file + ": unsupported model format version 7 (this build reads version 3)", refusal());
     }
 
     @Test
