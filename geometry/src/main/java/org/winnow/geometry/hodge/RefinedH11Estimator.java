@@ -32,7 +32,16 @@ public final class RefinedH11Estimator {
         UNSETTLED
     }
 
+    /** Engine answers kept for configurations seen again (training encodes each example many times). */
+    private static final int REMEMBERED = 4096;
+
     private final H11Estimator firstPage = new H11Estimator();
+    private final java.util.Map<Configuration, Answer> remembered = new java.util.LinkedHashMap<>(64, 0.75f, true) {
+        @Override
+        protected boolean removeEldestEntry(java.util.Map.Entry<Configuration, Answer> eldest) {
+            return size() > REMEMBERED;
+        }
+    };
     private final LongSupplier nanoClock;
     private HodgeEngine engine;
     private Source source = Source.FIRST_PAGE;
@@ -54,20 +63,29 @@ public final class RefinedH11Estimator {
             source = Source.FIRST_PAGE;
             return estimate;
         }
+        Answer answer = remembered.get(config);
+        if (answer == null) {
+            answer = ask(config, estimate);
+            remembered.put(config, answer);
+        }
+        source = answer.source();
+        return answer.value();
+    }
+
+    private record Answer(int value, Source source) {}
+
+    private Answer ask(Configuration config, int estimate) {
         if (engine == null) {
             engine = new HodgeEngine(HodgeEngine.DEFAULT_SEEDS, null, nanoClock);
         }
         Interval h11 = engine.compute(config).h11();
         if (h11 == null) {
-            source = Source.UNSETTLED;
-            return estimate;
+            return new Answer(estimate, Source.UNSETTLED);
         }
         if (h11.isExact()) {
-            source = Source.ENGINE_EXACT;
-            return Math.toIntExact(h11.value());
+            return new Answer(Math.toIntExact(h11.value()), Source.ENGINE_EXACT);
         }
-        source = Source.ENGINE_BOUNDED;
-        return Math.toIntExact(Math.max(h11.lo(), Math.min(h11.hi(), estimate)));
+        return new Answer(Math.toIntExact(Math.max(h11.lo(), Math.min(h11.hi(), estimate))), Source.ENGINE_BOUNDED);
     }
 
     /** How the last value was found. */
