@@ -1,13 +1,7 @@
 package org.winnow.app;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
-import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Optional;
@@ -24,7 +18,6 @@ import org.winnow.geometry.hodge.HodgeEngine;
 import org.winnow.geometry.hodge.HodgeResult;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
@@ -45,13 +38,8 @@ final class HodgeCommand implements Callable<Integer> {
     @Option(names = "--json", description = "One JSON object a line instead of text for humans.")
     boolean json;
 
-    @Option(names = "--file", paramLabel = "F",
-            description = "Read configurations from F, one a line ('-' = standard input; '#' starts a comment; "
-                    + "anything after a tab is ignored). May be repeated.")
-    List<String> files = new ArrayList<>();
-
-    @Parameters(paramLabel = "CONFIG", arity = "0..*", description = "Configurations such as 4:5 or 3:3,0,1/3:0,3,1.")
-    List<String> configs = new ArrayList<>();
+    @picocli.CommandLine.Mixin
+    ConfigurationInputs inputs = new ConfigurationInputs();
 
     @Option(names = "--summary",
             description = "After the results, print survey statistics (counts by status and method, timings) on stderr.")
@@ -77,34 +65,12 @@ final class HodgeCommand implements Callable<Integer> {
             err.flush();
             return WinnowCli.EXIT_BAD_INPUT;
         }
-        if (configs.isEmpty() && files.isEmpty()) {
+        if (inputs.isEmpty()) {
             err.println("winnow hodge: no configuration given (pass CONFIG arguments or --file F)");
             err.flush();
             return WinnowCli.EXIT_BAD_INPUT;
         }
-        for (int i = 0; i < configs.size(); i++) {
-            process(configs.get(i), 1, "argument " + (i + 1));
-        }
-        for (String file : files) {
-            String name = "-".equals(file) ? "standard input" : file;
-            try (BufferedReader reader = "-".equals(file)
-                    ? new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8))
-                    : Files.newBufferedReader(Path.of(file), StandardCharsets.UTF_8)) {
-                String line;
-                int number = 0;
-                while ((line = reader.readLine()) != null) {
-                    number++;
-                    String body = ConfigurationText.stripComment(line);
-                    if (body != null) {
-                        process(body, number, name + " line " + number);
-                    }
-                }
-            } catch (NoSuchFileException e) {
-                reportBad(name, "", "no such file");
-            } catch (IOException e) {
-                reportBad(name, "", "cannot read: " + e.getMessage());
-            }
-        }
+        inputs.forEach(this::process, (name, reason) -> reportBad(name, "", reason), name -> null);
         err.flush();
         runJobs();
         out.flush();

@@ -3,16 +3,8 @@ package org.winnow.app;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
-import java.nio.file.NoSuchFileException;
-import java.nio.file.Path;
-import java.util.ArrayList;
-import java.util.List;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import me.tongfei.progressbar.ConsoleProgressBarConsumer;
@@ -27,7 +19,6 @@ import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.geometry.invariants.TripleIntersection;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
-import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
 
@@ -50,14 +41,8 @@ final class InvariantsCommand implements Callable<Integer> {
     @Option(names = "--json", description = "One JSON object a line instead of text for humans.")
     boolean json;
 
-    @Option(names = "--file", paramLabel = "F",
-            description = "Read configurations from F, one a line ('-' = standard input; '#' starts a comment; "
-                    + "anything after a tab is ignored). May be repeated.")
-    List<String> files = new ArrayList<>();
-
-    @Parameters(paramLabel = "CONFIG", arity = "0..*",
-            description = "Configurations such as 4:5 or 2:3/2:3 (rows n:d1,...,dK joined by '/').")
-    List<String> configs = new ArrayList<>();
+    @picocli.CommandLine.Mixin
+    ConfigurationInputs inputs = new ConfigurationInputs();
 
     private final InvariantCalculator calculator = new InvariantCalculator();
     private PrintWriter out;
@@ -68,45 +53,15 @@ final class InvariantsCommand implements Callable<Integer> {
     public Integer call() {
         out = spec.commandLine().getOut();
         err = spec.commandLine().getErr();
-        if (configs.isEmpty() && files.isEmpty()) {
+        if (inputs.isEmpty()) {
             err.println("winnow invariants: no configuration given (pass CONFIG arguments or --file F)");
             err.flush();
             return WinnowCli.EXIT_BAD_INPUT;
         }
-        for (int i = 0; i < configs.size(); i++) {
-            process(configs.get(i), 1, "argument " + (i + 1));
-        }
-        for (String file : files) {
-            processFile(file);
-        }
+        inputs.forEach(this::process, (name, reason) -> reportBad(name, "", reason), this::progressBar);
         out.flush();
         err.flush();
         return bad == 0 ? 0 : WinnowCli.EXIT_BAD_INPUT;
-    }
-
-    private void processFile(String file) {
-        String name = "-".equals(file) ? "standard input" : file;
-        try (BufferedReader reader = "-".equals(file)
-                ? new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8))
-                : Files.newBufferedReader(Path.of(file), StandardCharsets.UTF_8);
-                ProgressBar progress = progressBar(name)) {
-            String line;
-            int number = 0;
-            while ((line = reader.readLine()) != null) {
-                number++;
-                String body = ConfigurationText.stripComment(line);
-                if (body != null) {
-                    process(body, number, name + " line " + number);
-                }
-                if (progress != null) {
-                    progress.step();
-                }
-            }
-        } catch (NoSuchFileException e) {
-            reportBad(name, "", "no such file");
-        } catch (IOException e) {
-            reportBad(name, "", "cannot read: " + e.getMessage());
-        }
     }
 
     /** A progress bar on stderr for long file runs, only when a person is watching. */
