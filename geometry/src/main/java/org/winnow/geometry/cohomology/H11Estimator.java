@@ -46,6 +46,8 @@ public final class H11Estimator {
     private final int[] supportDegree = new int[Configuration.MAX_COLS * Configuration.MAX_ROWS];
     private final int[] supportSize = new int[Configuration.MAX_COLS];
     private final int[] supportMask = new int[Configuration.MAX_COLS];
+    /** Per row: the mask of the columns where it has a nonzero degree. */
+    private final int[] rowColumns = new int[Configuration.MAX_ROWS];
     /** Per bundle and total degree 0..3: the smallest and largest Koszul column p of a nonzero entry. */
     private final int[] minP = new int[(Configuration.MAX_ROWS + Configuration.MAX_COLS) * 4];
     private final int[] maxP = new int[(Configuration.MAX_ROWS + Configuration.MAX_COLS) * 4];
@@ -69,6 +71,7 @@ public final class H11Estimator {
             sums[r] = 0;
             excluded[r] = 0;
         }
+        java.util.Arrays.fill(rowColumns, 0, m, 0);
         for (int j = 0; j < k; j++) {
             int size = 0;
             int mask = 0;
@@ -79,6 +82,7 @@ public final class H11Estimator {
                     supportDegree[j * Configuration.MAX_ROWS + size] = q;
                     size++;
                     mask |= 1 << r;
+                    rowColumns[r] |= 1 << j;
                 }
             }
             supportSize[j] = size;
@@ -153,15 +157,11 @@ public final class H11Estimator {
             order[placed++] = start;
             for (int head = placed - 1; head < placed; head++) {
                 int from = order[head];
-                for (int r = 0; r < c.rows(); r++) {
-                    if (c.q(r, from) == 0) {
-                        continue;
-                    }
-                    for (int to = 0; to < k; to++) {
-                        if ((seen & (1 << to)) == 0 && c.q(r, to) != 0) {
-                            seen |= 1 << to;
-                            order[placed++] = to;
-                        }
+                for (int rows = supportMask[from]; rows != 0; rows &= rows - 1) {
+                    int fresh = rowColumns[Integer.numberOfTrailingZeros(rows)] & ~seen;
+                    seen |= fresh;
+                    for (; fresh != 0; fresh &= fresh - 1) {
+                        order[placed++] = Integer.numberOfTrailingZeros(fresh);
                     }
                 }
             }
@@ -339,7 +339,23 @@ public final class H11Estimator {
         }
     }
 
+    /** {@code C(top, bottom)} for the small arguments a Calabi-Yau row gives ({@code top <= 2 MAX_N + 2}). */
+    private static final long[][] SMALL_BINOMIALS = smallBinomials(2 * Configuration.MAX_N + 3, Configuration.MAX_N + 1);
+
+    private static long[][] smallBinomials(int tops, int bottoms) {
+        long[][] t = new long[tops][bottoms];
+        for (int a = 0; a < tops; a++) {
+            for (int b = 0; b < bottoms && b <= a; b++) {
+                t[a][b] = b == 0 || b == a ? 1 : Math.addExact(t[a - 1][b - 1], b < a ? t[a - 1][b] : 0);
+            }
+        }
+        return t;
+    }
+
     private static long binomial(int top, int bottom) {
+        if (top >= 0 && top < SMALL_BINOMIALS.length && bottom >= 0 && bottom < SMALL_BINOMIALS[0].length) {
+            return bottom > top ? 0 : SMALL_BINOMIALS[top][bottom];
+        }
         long r = 1;
         for (int i = 1; i <= bottom; i++) {
             r = Math.multiplyExact(r, top - bottom + i) / i;
