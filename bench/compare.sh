@@ -1,20 +1,25 @@
 #!/usr/bin/env bash
 # Side by side: winnow's scorer against the numpy reference scorer on one candidate file, in one go,
-# then the end-to-end scan, the cluster mode if present, and the forward pass against the machine's
-# FMA rate. Prints candidates/s for each run, the ratios, and a summary of `name: value` lines.
+# then the end-to-end scan, the cluster mode on loopback, the h11 estimate's share of both scorers, and
+# the forward pass against the machine's FMA rate. Prints candidates/s for each run, the ratios, and a
+# summary of `name: value` lines.
 #
-#   bench/compare.sh            # 10^6 candidates for winnow, the first 10^5 of them for numpy
-#   bench/compare.sh --quick    # 10^5 for winnow, the first 10^4 for numpy (under two minutes idle)
+#   bench/compare.sh            # 10^6 four-fold candidates (8 rows at most) for winnow, 10^5 of them for numpy
+#   bench/compare.sh --quick    # 10^5 (7 rows at most) for winnow, 10^4 of them for numpy
 #
 # Work files go to bench/target/compare (override with COMPARE_DIR). See bench/README.md.
 set -euo pipefail
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 count=1000000
 numpy_count=100000
+max_rows=8
+kafka_count=100000
 epochs=4
 if [ "${1:-}" = "--quick" ]; then
   count=100000
   numpy_count=10000
+  max_rows=7
+  kafka_count=10000
   epochs=2
 fi
 work="${COMPARE_DIR:-$here/bench/target/compare}"
@@ -38,25 +43,32 @@ fi
 numpy_version="$("$python" -c 'import numpy; print(numpy.__version__)')"
 
 say "compare: building"
-(cd "$here" && mvn -B -q -ntp -Dstyle.color=never -DskipTests -pl bench -am package) >>"$log" 2>&1
+(cd "$here" && mvn -B -q -ntp -Dstyle.color=never -DskipTests -pl bench -am package dependency:build-classpath \
+  -Dmdep.outputFile=target/cluster-cp.txt) >>"$log" 2>&1
 winnow="$here/app/target/winnow.jar"
 bench="$here/bench/target/benchmarks.jar"
 java_opts=(-Xmx2g)
 
-model="$work/model.wnm"
+# Four-folds: the three-fold space is too small to time a deduplicating scan on (10^5 draws hold
+# under 6,000 canonical forms). The producer's enumeration, at an even stride, gives distinct lines.
+cands="$work/candidates-4-$count.tsv"
+if [ ! -f "$cands" ]; then
+  say "compare: generating $count four-fold candidates (base rules, at most $max_rows rows)"
+  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.GenerateCandidates --dim 4 --max-rows "$max_rows" \
+    --count "$count" --out "$cands"
+fi
+count=$(wc -l < "$cands")
+model="$work/model-4-$count.wnm"
 if [ ! -f "$model" ]; then
-  say "compare: training the bench model (synthetic scenario, 7890 reference examples, $epochs epochs)"
-  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.BenchModel --epochs "$epochs" --out "$model" >>"$log" 2>&1
+  say "compare: training the bench model (default architecture, 7890 four-folds of the file, toy labels, $epochs epochs)"
+  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.BenchModel --from "$cands" --epochs "$epochs" \
+    --out "$model" >>"$log" 2>&1
 fi
 java "${java_opts[@]}" -jar "$winnow" export-weights --model "$model" --out "$work/weights.json"
-
-cands="$work/candidates-$count.tsv"
-if [ ! -f "$cands" ]; then
-  say "compare: generating $count candidates (seed 7)"
-  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.GenerateCandidates --count "$count" --seed 7 --out "$cands"
-fi
-prefix="$work/candidates-$count-first-$numpy_count.tsv"
-head -n "$numpy_count" "$cands" > "$prefix"
+# numpy's share, at an even stride over the file: the enumeration's order puts the small matrices first.
+prefix="$work/candidates-$count-every-$numpy_count.tsv"
+awk -v s=$(( count / numpy_count > 0 ? count / numpy_count : 1 )) -v n="$numpy_count" \
+  '(NR - 1) % s == 0 && taken < n { print; taken++ }' "$cands" > "$prefix"
 
 # field NAME FILE: the value of NAME=value on the first line of FILE that has it
 field() { grep -o "$2=[^ ]*" "$1" | head -1 | cut -d= -f2; }
@@ -83,40 +95,52 @@ run_numpy numpy2 2 "$prefix"
 
 # End to end: `winnow scan` (2 threads) against the scorer alone (2 threads) on the file's distinct
 # lines (the scan deduplicates, so only those are work for it). The scan is timed as a difference
-# between all distinct lines and the first 1000 of them, so that JVM start and model load cancel out.
+# between all distinct lines and 1000 of them at an even stride, so that JVM start and model load cancel out.
 e2e="not available"
 distinct="$work/candidates-$count-distinct.tsv"
 awk -F'\t' '!seen[$1]++' "$cands" > "$distinct"
 dcount=$(wc -l < "$distinct")
-scan_once() { # file -> seconds on stdout
+scan_once() { # file -> "wall-seconds cpu-seconds" on stdout (cpu: user + system of the JVM process)
   rm -rf "$work/scan-out"
-  local start end
-  start=$(date +%s.%N)
-  java "${java_opts[@]}" -jar "$winnow" scan --model "$model" --input "$1" --out "$work/scan-out" --threads 2 \
-    >"$work/scan.out" 2>&1 || return 1
-  end=$(date +%s.%N)
-  echo "$end - $start" | bc -l
+  local TIMEFORMAT='%R %U %S' t
+  t=$( { time java "${java_opts[@]}" -jar "$winnow" scan --model "$model" --input "$1" --out "$work/scan-out" \
+    --threads 2 >"$work/scan.out" 2>&1 ; } 2>&1 ) || return 1
+  echo "$t" | awk '{ print $1, $2 + $3 }'
 }
+e2e_cpu="not available"
 if java -jar "$winnow" scan --help >/dev/null 2>&1; then
-  run_winnow winnow2-distinct 2 "$distinct"
+  if [ "$dcount" -eq "$count" ]; then
+    cp "$work/winnow2.out" "$work/winnow2-distinct.out"   # every line distinct: the same run
+  else
+    run_winnow winnow2-distinct 2 "$distinct"
+  fi
   say "compare: winnow scan end to end, 2 threads, $dcount distinct candidates"
-  head -n 1000 "$distinct" > "$work/first-1000.tsv"
-  if t_small=$(scan_once "$work/first-1000.tsv") && t_full=$(scan_once "$distinct"); then
+  awk -v s=$(( dcount / 1000 > 0 ? dcount / 1000 : 1 )) '(NR - 1) % s == 0 && taken < 1000 { print; taken++ }' \
+    "$distinct" > "$work/some-1000.tsv"
+  if t_small=$(scan_once "$work/some-1000.tsv") && t_full=$(scan_once "$distinct"); then
     grep -v SLF4J "$work/scan.out" >&2
-    e2e=$("$python" -c "print(f'{($dcount - 1000) / ($t_full - $t_small):.1f}')")
+    read -r w_small c_small <<< "$t_small"
+    read -r w_full c_full <<< "$t_full"
+    e2e=$("$python" -c "print(f'{($dcount - 1000) / ($w_full - $w_small):.1f}')")
+    e2e_cpu=$("$python" -c "print(f'{($dcount - 1000) / ($c_full - $c_small):.1f}')")
   else
     e2e="failed (see $work/scan.out)"
   fi
 fi
-# Cluster mode: main has `winnow produce | score | sink` on Kafka, but this script does not drive
-# them yet, and says so rather than guess a figure.
-kafka="not available"
-if java -jar "$winnow" score --help >/dev/null 2>&1; then
-  kafka="not measured (cluster commands exist; compare.sh does not drive them yet)"
+# Cluster mode: producer, 2 scorers and sink over a single-node broker on loopback, against
+# `winnow scan` on the same lines in the same JVM (bench/cluster-throughput.sh, ClusterThroughput).
+kafka_n=$(( kafka_count < dcount ? kafka_count : dcount ))
+say "compare: cluster mode on loopback against winnow scan, $kafka_n candidates, 2 scorers"
+kafka="failed (see $work/kafka.out)"
+if WINNOW_BENCH_BUILT=1 "$here/bench/cluster-throughput.sh" "$kafka_n" 2 --model "$model" --input "$distinct" \
+    > "$work/kafka.out" 2>>"$log"; then
+  grep -v '^scan_rate' "$work/kafka.out" >&2
+  kafka=$("$python" -c "print(f'{$(field "$work/kafka.out" cluster_rate) / $(field "$work/kafka.out" scan_rate):.2f}')")
+  [ "$(field "$work/kafka.out" counts_equal)" = "true" ] || kafka="$kafka (counts differ from the scan's!)"
 fi
 
 say "compare: forward pass cost"
-java "${java_opts[@]}" -cp "$bench" org.winnow.bench.ForwardPassCost --model "$model" --candidates "$cands" \
+java "${java_opts[@]}" -cp "$bench" org.winnow.bench.ForwardPassCost --model "$model" --candidates "$prefix" \
   --limit "$numpy_count" > "$work/forward.out"
 cat "$work/forward.out" >&2
 say "compare: FMA rate (JMH)"
@@ -131,29 +155,39 @@ W1=$(field "$work/winnow1.out" rate) W2=$(field "$work/winnow2.out" rate) \
 W1C=$(field "$work/winnow1.out" cpu_rate) W2C=$(field "$work/winnow2.out" cpu_rate) \
 N1=$(field "$work/numpy1.out" rate) N2=$(field "$work/numpy2.out" rate) \
 N1C=$(field "$work/numpy1.out" cpu_rate) N2C=$(field "$work/numpy2.out" cpu_rate) \
+ER=$(field "$work/forward.out" estimate_rate) \
+NE1=$(field "$work/numpy1.out" estimate_cpu_seconds) NC1=$(field "$work/numpy1.out" cpu_seconds) \
 FM=$(field "$work/forward.out" forward_macs) SM=$(field "$work/forward.out" search_macs) \
 FR=$(field "$work/forward.out" forward_rate) RR=$(field "$work/forward.out" full_rate) \
 VF=$(field "$work/flops.out" vector_cpu_flops) SF=$(field "$work/flops.out" scalar_cpu_flops) \
 VFW=$(field "$work/flops.out" vector_flops) \
 W2D=$(field "$work/winnow2-distinct.out" rate 2>/dev/null || echo nan) DCOUNT="$dcount" \
-E2E="$e2e" KAFKA="$kafka" AGREE="$agree" COUNT="$count" NCOUNT="$numpy_count" LOAD="$(cut -d' ' -f1-3 /proc/loadavg)" \
+E2E="$e2e" E2EC="$e2e_cpu" W2DC=$(field "$work/winnow2-distinct.out" cpu_rate 2>/dev/null || echo nan) KAFKA="$kafka" AGREE="$agree" COUNT="$count" NCOUNT="$numpy_count" LOAD="$(cut -d' ' -f1-3 /proc/loadavg)" \
 "$python" - <<'EOF'
 import os
 e = os.environ
 f = lambda k: float(e[k])
 w1, w2, n1, n2 = f("W1"), f("W2"), f("N1"), f("N2")
 fwd_flops = f("FM") * 2 * f("FR")
+# The forward pass as timed includes the features, among them the h11 estimate (an integer search, no
+# FLOPs); the network's own time is what remains once the estimate's time alone is taken off.
+net_seconds = 1 / f("FR") - 1 / f("ER")
+net_flops = f("FM") * 2 / net_seconds if net_seconds > 0 else float("nan")
 print()
 print(f"machine: {os.cpu_count()} cores, load average {e['LOAD']} (wall-clock rates suffer from the load; cpu rates much less)")
 print(f"{'run':34s} {'cand/s (wall)':>14s} {'cand/s (cpu)':>14s}")
 print(f"{'winnow scorer, 1 thread':34s} {w1:14.0f} {f('W1C'):14.0f}   ({e['COUNT']} candidates)")
 print(f"{'winnow scorer, 2 threads':34s} {w2:14.0f} {f('W2C'):14.0f}")
-print(f"{'numpy scorer, 1 BLAS thread':34s} {n1:14.0f} {f('N1C'):14.0f}   (first {e['NCOUNT']})")
+print(f"{'numpy scorer, 1 BLAS thread':34s} {n1:14.0f} {f('N1C'):14.0f}   ({e['NCOUNT']} of them, even stride)")
 print(f"{'numpy scorer, 2 BLAS threads':34s} {n2:14.0f} {f('N2C'):14.0f}")
-print(f"{'winnow scan, end to end, 2 threads':34s} {e['E2E']:>14s}   ({e['DCOUNT']} distinct candidates)")
-print(f"{'winnow scorer, 2 threads, distinct':34s} {f('W2D'):14.0f}")
-print(f"forward pass: {f('FM'):.0f} multiply-adds per candidate, {f('FR'):.0f} candidates per cpu-second alone,"
-      f" {fwd_flops / 1e9:.2f} GFLOP/s; neighbour scan {f('SM'):.0f} multiply-adds; with the vote {f('RR'):.0f}/cpu-s")
+print(f"{'winnow scan, end to end, 2 threads':34s} {e['E2E']:>14s} {e['E2EC']:>14s}   ({e['DCOUNT']} distinct candidates)")
+print(f"{'winnow scorer, 2 threads, distinct':34s} {f('W2D'):14.0f} {f('W2DC'):14.0f}")
+print(f"forward pass: {f('FM'):.0f} multiply-adds per candidate, {f('FR'):.0f} candidates per cpu-second alone"
+      f" (features with the estimate, and network), {fwd_flops / 1e9:.2f} GFLOP/s; without the estimate's time"
+      f" {net_flops / 1e9:.2f} GFLOP/s; neighbour scan {f('SM'):.0f} multiply-adds; with the vote {f('RR'):.0f}/cpu-s")
+print(f"h11 estimate alone (H11Estimator, one thread): {f('ER'):.0f} per cpu-second,"
+      f" {1e6 / f('ER'):.2f} us of winnow's {1e6 / f('RR'):.2f} us per candidate;"
+      f" numpy's Python estimate {f('NE1'):.2f} of {f('NC1'):.2f} cpu-seconds (1 BLAS thread)")
 print(f"FMA limit (cpu time, one core): vector {f('VF') / 1e9:.1f} GFLOP/s, scalar {f('SF') / 1e9:.1f} GFLOP/s;"
       f" JMH wall clock vector {f('VFW') / 1e9:.1f}")
 print()
@@ -167,8 +201,15 @@ try:
     print(f"end-to-end/scorer: {float(e['E2E']) / f('W2D'):.2f}")
 except ValueError:
     print(f"end-to-end/scorer: {e['E2E']}")
+try:
+    print(f"end-to-end/scorer (cpu time): {float(e['E2EC']) / f('W2DC'):.2f}")
+except ValueError:
+    print(f"end-to-end/scorer (cpu time): {e['E2EC']}")
 print(f"kafka/in-process: {e['KAFKA']}")
 print(f"forward pass/FLOP limit: {fwd_flops / f('VF'):.3f}")
 print(f"forward pass/scalar FLOP limit: {fwd_flops / f('SF'):.3f}")
-print(f"predictions agree (histogram of the numpy prefix): {e['AGREE']}")
+print(f"network without estimate/FLOP limit: {net_flops / f('VF'):.3f}")
+print(f"estimate share of winnow scorer (cpu time): {f('RR') / f('ER'):.2f}")
+print(f"estimate share of numpy scorer (cpu time, 1 BLAS thread): {f('NE1') / f('NC1'):.2f}")
+print(f"predictions agree (histogram of numpy's candidates): {e['AGREE']}")
 EOF

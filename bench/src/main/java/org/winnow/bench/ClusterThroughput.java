@@ -9,10 +9,12 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.SplittableRandom;
+import java.util.concurrent.Callable;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import java.util.concurrent.atomic.AtomicBoolean;
+import java.util.stream.Stream;
 import org.apache.kafka.clients.admin.Admin;
 import org.apache.kafka.clients.admin.LogDirDescription;
 import org.winnow.app.WinnowCli;
@@ -36,33 +38,66 @@ import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.stage.ModelScoring;
 import org.winnow.sink.Manifest;
 import org.winnow.sink.SinkOptions;
+import picocli.CommandLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
 
 /**
- * Cluster mode against {@code winnow scan} on one machine: the same input (synthetic scenario, invented
- * data), model and rules, scanned in one JVM and then run as producer, scorers and sink over a real broker
+ * Cluster mode against {@code winnow scan} on one machine: the same input (by default the synthetic
+ * scenario, invented data), model and rules, scanned in one JVM and then run as producer, scorers and sink over a real broker
  * on loopback (all in this JVM, so the comparison measures the transport, not process start-up). Prints
  * candidates per second of both and the bytes per candidate the broker stored for the candidates and
  * scored topics (lz4-compressed batches, headers included), which is what crossed the wire.
  *
- * <p>Run with {@code bench/cluster-throughput.sh [candidates] [scorers]}. Not a test.
+ * <p>Run with {@code bench/cluster-throughput.sh [candidates] [scorers]}, or on a given model and
+ * candidate file with {@code --model M --input F} ({@code bench/compare.sh} does, on its four-fold bench
+ * file; then {@code candidates} lines of F are used). The last line is
+ * {@code scan_rate=R cluster_rate=Q counts_equal=B} for drivers. Not a test.
  */
-public final class ClusterThroughput {
-    private ClusterThroughput() {
+@Command(name = "cluster-throughput", mixinStandardHelpOptions = true)
+public final class ClusterThroughput implements Callable<Integer> {
+    @Parameters(index = "0", defaultValue = "50000", description = "Candidates (default ${DEFAULT-VALUE}).")
+    int count;
+
+    @Parameters(index = "1", defaultValue = "2", description = "Scorers (default ${DEFAULT-VALUE}).")
+    int scorers;
+
+    @Option(names = "--model", description = "A frozen model (.wnm); default a small one trained on the synthetic scenario.")
+    Path modelPath;
+
+    @Option(names = "--input", description = "Candidate lines (the first `candidates` are used); default synthetic draws.")
+    Path inputPath;
+
+    public static void main(String[] args) {
+        System.exit(new CommandLine(new ClusterThroughput()).execute(args));
     }
 
-    public static void main(String[] args) throws Exception {
-        int count = args.length > 0 ? Integer.parseInt(args[0]) : 50_000;
-        int scorers = args.length > 1 ? Integer.parseInt(args[1]) : 2;
+    @Override
+    public Integer call() throws Exception {
         Path dir = Files.createTempDirectory("winnow-cluster-bench-");
-        FrozenModel model = Trainer.train(SyntheticScenario.generate(400, 5),
-                TrainingOptions.defaults(4, 11).withArchitecture(new Architecture(8, 2, 12, 4)).withEpochs(2)
-                        .withLabelSource("synthetic scenario"), TrainingProgress.silent());
-        Path modelFile = dir.resolve("bench.wnm");
-        model.save(modelFile);
-        SplittableRandom rnd = new SplittableRandom(2026L);
+        FrozenModel model;
+        Path modelFile;
+        if (modelPath != null) {
+            model = FrozenModel.load(modelPath);
+            modelFile = modelPath;
+        } else {
+            model = Trainer.train(SyntheticScenario.generate(400, 5), TrainingOptions.defaults(4, 11)
+                    .withArchitecture(new Architecture(8, 2, 12, 4)).withEpochs(2)
+                    .withLabelSource("synthetic scenario"), TrainingProgress.silent());
+            modelFile = dir.resolve("bench.wnm");
+            model.save(modelFile);
+        }
         List<String> lines = new ArrayList<>();
-        for (int i = 0; i < count; i++) {
-            lines.add(SyntheticScenario.draw(rnd).toText());
+        if (inputPath != null) {
+            try (Stream<String> in = Files.lines(inputPath)) {
+                in.limit(count).forEach(lines::add);
+            }
+        } else {
+            SplittableRandom rnd = new SplittableRandom(2026L);
+            for (int i = 0; i < count; i++) {
+                lines.add(SyntheticScenario.draw(rnd).toText());
+            }
         }
         Path input = Files.write(dir.resolve("input.txt"), lines);
         List<String> keeps = List.of("h11=2..5", "chi=-150..0");
@@ -110,7 +145,11 @@ public final class ClusterThroughput {
             System.out.printf("bytes/candidate  candidates topic %.1f, scored topic %.1f%n",
                     sizes.get(run.candidates()) / (double) candidates, sizes.get(run.scored()) / (double) candidates);
             joined.forEach(ClusterScorer::close);
+            System.out.printf("scan_rate=%.1f cluster_rate=%.1f counts_equal=%s%n",
+                    scan.counts().candidates() / scanSeconds, candidates / clusterSeconds,
+                    scan.counts().equals(cluster.counts()));
         }
+        return 0;
     }
 
     /** Joins once the producer has created the run; until then the run is refused. */

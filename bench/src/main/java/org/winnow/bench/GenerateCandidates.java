@@ -2,6 +2,7 @@ package org.winnow.bench;
 
 import java.io.BufferedWriter;
 import java.io.IOException;
+import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -9,22 +10,32 @@ import java.util.SplittableRandom;
 import java.util.concurrent.Callable;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.invariants.InvariantCalculator;
+import org.winnow.producer.Bounds;
+import org.winnow.producer.Enumerator;
+import org.winnow.producer.RuleSet;
+import org.winnow.producer.ShardSpec;
 import org.winnow.scorer.model.synthetic.SyntheticScenario;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 
 /**
- * Writes a bench candidate file: {@code count} seeded random three-fold configuration matrices
- * (drawn like the synthetic development scenario: K in 1..5, sum n = K + 3, every row summing to
- * n_r + 1, every column to at least 2; repeats allowed), each in canonical form and with its exact
- * chi from the geometry module's calculator. Same seed and count, same file, byte for byte.
+ * Writes a bench candidate file, one {@code configuration<TAB>chi} a line, each configuration in
+ * canonical form and with its exact chi from the geometry module's calculator. Same options, same
+ * file, byte for byte.
  *
- * <p>Repeats are many: the three-fold space is small (10^5 draws give under 6,000 canonical forms),
- * so a deduplicating scan scores only the distinct lines; the canonical text makes them easy to pick
- * out ({@code awk -F'\t' '!seen[$1]++'}).
+ * <p>{@code --dim 3} (the default): {@code count} seeded random three-fold matrices drawn like the
+ * synthetic development scenario (K in 1..5, sum n = K + 3, every row summing to n_r + 1, every
+ * column to at least 2; repeats allowed). Repeats are many: the three-fold space is small (10^5 draws
+ * give under 6,000 canonical forms), so a deduplicating scan scores only the distinct lines.
  *
- * <p>{@code java -cp bench/target/benchmarks.jar org.winnow.bench.GenerateCandidates --count 1000000 --seed 7 --out c.tsv}
+ * <p>{@code --dim 4}: what the producer gives, distinct four-fold matrices of the enumeration under
+ * the {@code base} rules with at most {@code --max-rows} rows, taken at an even stride over the whole
+ * enumeration so that every row count is represented in proportion (the enumeration's first matrices
+ * are all small). If the space holds fewer than {@code count} matrices, all of them are written. The
+ * seed is not used: the enumeration is deterministic.
+ *
+ * <p>{@code java -cp bench/target/benchmarks.jar org.winnow.bench.GenerateCandidates --dim 4 --count 100000 --out c.tsv}
  */
 @Command(name = "generate-candidates", mixinStandardHelpOptions = true)
 public final class GenerateCandidates implements Callable<Integer> {
@@ -37,14 +48,63 @@ public final class GenerateCandidates implements Callable<Integer> {
     @Option(names = "--out", required = true, description = "Output file.")
     Path out;
 
+    @Option(names = "--dim", defaultValue = "3", description = "3: synthetic draws; 4: the producer's enumeration (default ${DEFAULT-VALUE}).")
+    int dim;
+
+    @Option(names = "--max-rows", defaultValue = "7", description = "Most rows, --dim 4 only (default ${DEFAULT-VALUE}).")
+    int maxRows;
+
     public static void main(String[] args) {
         System.exit(new CommandLine(new GenerateCandidates()).execute(args));
     }
 
     @Override
     public Integer call() throws IOException {
-        write(count, seed, out);
+        if (dim == 3) {
+            write(count, seed, out);
+        } else if (dim == 4) {
+            long written = writeEnumerated(count, maxRows, out);
+            if (written < count) {
+                System.err.printf("generate-candidates: the space holds only %d matrices; all written%n", written);
+            }
+        } else {
+            System.err.println("generate-candidates: --dim must be 3 or 4: " + dim);
+            return 2;
+        }
         return 0;
+    }
+
+    /**
+     * Writes up to {@code count} four-fold matrices of the {@code base} enumeration with at most
+     * {@code maxRows} rows, at an even stride over the whole enumeration; returns how many.
+     */
+    static long writeEnumerated(long count, int maxRows, Path out) throws IOException {
+        Bounds complete = Bounds.complete(4);
+        Bounds bounds = new Bounds(4, complete.minRows(), maxRows, complete.maxCols(), complete.maxN(),
+                complete.maxEntry());
+        Enumerator enumerator = new Enumerator();
+        long total = enumerator.count(bounds, RuleSet.BASE, ShardSpec.ALL).total();
+        long stride = Math.max(1, total / Math.max(1, count));
+        InvariantCalculator calculator = new InvariantCalculator();
+        long[] seen = {0, 0};
+        try (BufferedWriter w = Files.newBufferedWriter(out, StandardCharsets.UTF_8)) {
+            enumerator.run(bounds, RuleSet.BASE, ShardSpec.ALL, e -> {
+                if (seen[0]++ % stride != 0 || seen[1] >= count) {
+                    return;
+                }
+                seen[1]++;
+                Configuration c = e.configuration();
+                try {
+                    w.write(new CandidateLine(c, calculator.chi(c)).format());
+                    w.write('\n');
+                } catch (IOException ex) {
+                    throw new UncheckedIOException(ex);
+                }
+            });
+        } catch (UncheckedIOException e) {
+            throw e.getCause();
+        }
+        return seen[1];
     }
 
     /** Writes the file; see the class comment. */

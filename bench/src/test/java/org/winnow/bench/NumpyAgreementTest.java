@@ -40,14 +40,31 @@ class NumpyAgreementTest {
         TrainingOptions options = TrainingOptions.defaults(8, 5).withArchitecture(Architecture.defaults(8))
                 .withEpochs(2).withThreads(1);
         FrozenModel model = Trainer.train(SyntheticScenario.generate(600, 5), options, TrainingProgress.silent());
+        Path candidates = dir.resolve("c.tsv");
+        GenerateCandidates.write(1000, 99, candidates);
+        assertAgreement(python, model, candidates, 1000);
+    }
+
+    /** The bench's four-fold file: the estimate's search goes deeper there than on three-folds. */
+    @Test
+    void numpyScorerPredictsWhatWinnowPredictsOnFourFoldsOfTheEnumeration() throws Exception {
+        String python = PythonWithNumpy.find();
+        assumeTrue(python != null, "no python3 with numpy on this machine");
+
+        Path candidates = dir.resolve("c4.tsv");
+        assertEquals(600, GenerateCandidates.writeEnumerated(600, 5, candidates));
+        TrainingOptions options = TrainingOptions.defaults(9, 5).withEpochs(2).withThreads(1);
+        FrozenModel model = Trainer.train(BenchModel.fromCandidates(candidates, 300), options,
+                TrainingProgress.silent());
+        assertAgreement(python, model, candidates, 600);
+    }
+
+    private void assertAgreement(String python, FrozenModel model, Path candidates, int count) throws Exception {
         Path modelFile = dir.resolve("m.wnm");
         model.save(modelFile);
         Path weights = dir.resolve("w.json");
         assertEquals(0, WinnowCli.commandLine().execute("export-weights", "--model", modelFile.toString(), "--out",
                 weights.toString()));
-        Path candidates = dir.resolve("c.tsv");
-        GenerateCandidates.write(1000, 99, candidates);
-
         List<Integer> expected = new ArrayList<>();
         Predictor p = model.newPredictor();
         int number = 0;
@@ -62,7 +79,7 @@ class NumpyAgreementTest {
         assertTrue(new HashSet<>(expected).size() >= 3, "predictions: " + new HashSet<>(expected));
         for (String search : new String[] {"direct", "gemm"}) {
             List<Integer> actual = numpy(python, weights, candidates, search);
-            assertEquals(1000, actual.size());
+            assertEquals(count, actual.size());
             for (int i = 0; i < expected.size(); i++) {
                 assertEquals(expected.get(i), actual.get(i), search + " search, candidate " + (i + 1));
             }
