@@ -12,6 +12,7 @@ import java.util.concurrent.Callable;
 import java.util.function.ToIntFunction;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.cohomology.H11Estimator;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.Calibration;
@@ -26,7 +27,8 @@ import picocli.CommandLine.Option;
  * Where the scorer's arithmetic goes, on one thread over pre-parsed candidates: the multiply-adds of
  * the forward pass (counted from the architecture and each candidate's shape) and of the full
  * neighbour scan, and the measured rates of the first-page h11 estimate alone ({@link H11Estimator},
- * one of the features), of the forward pass alone (features, estimate included, and network) and of
+ * one of the features) and of the anchor the model uses ({@link RefinedH11Estimator}: that estimate
+ * where its pages are settled, the Hodge engine elsewhere), of the forward pass alone (features, estimate included, and network) and of
  * forward pass plus vote; and, for the end-to-end comparison, the rate of the exact cheap invariants
  * ({@link InvariantCalculator#compute}) that {@code winnow scan} computes for every candidate and the
  * scorer-alone runs read from the file.
@@ -103,13 +105,15 @@ public final class ForwardPassCost implements Callable<Integer> {
         double forwardMacs = (double) macs / n;
         double searchMacs = (double) full.reference().size() * full.architecture().dim();
         double estimateRate = rate(configs, n, new H11Estimator()::estimate);
+        // The anchor the model uses: the first page where settled, else the Hodge engine (no exact backend).
+        double anchorRate = rate(configs, n, new RefinedH11Estimator()::estimate);
         InvariantCalculator calculator = new InvariantCalculator();
         double invariantsRate = rate(configs, n, c -> calculator.compute(c).hashCode());
         double forwardRate = bestRate(singlePoint(full).newPredictor(), configs, chis, n);
         double fullRate = bestRate(full.newPredictor(), configs, chis, n);
         System.out.printf("candidates=%d forward_macs=%.1f search_macs=%.1f estimate_rate=%.1f forward_rate=%.1f"
-                + " full_rate=%.1f invariants_rate=%.1f%n", n, forwardMacs, searchMacs, estimateRate, forwardRate, fullRate,
-                invariantsRate);
+                + " full_rate=%.1f invariants_rate=%.1f anchor_rate=%.1f%n", n, forwardMacs, searchMacs, estimateRate,
+                forwardRate, fullRate, invariantsRate, anchorRate);
         return 0;
     }
 

@@ -10,6 +10,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
+import java.util.Locale;
 import java.util.Map;
 import java.util.TreeMap;
 import java.util.concurrent.ArrayBlockingQueue;
@@ -19,6 +20,7 @@ import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.model.Predictor;
 import picocli.CommandLine;
@@ -33,8 +35,10 @@ import picocli.CommandLine.Option;
  *
  * <p>Prints one line {@code candidates=N seconds=S rate=R cpu_seconds=C cpu_rate=Q} (wall clock, and
  * the CPU time of the whole process: workers, reader, JIT and GC, which is what a shared machine
- * does not distort much) and the histogram of predicted h11, so a
- * driver can check that both scorers agree on the whole file.
+ * does not distort much), the histogram of predicted h11, the candidates per source of the anchor
+ * ({@link RefinedH11Estimator.Source}: the first page, or the Hodge engine where the first page is
+ * unsettled) and the histogram that a scorer deferring the unsettled candidates prints (those as -1,
+ * as the numpy port does), so that a driver can check that both scorers agree on the whole file.
  */
 @Command(name = "scorer-throughput", mixinStandardHelpOptions = true)
 public final class ScorerThroughput implements Callable<Integer> {
@@ -67,20 +71,42 @@ public final class ScorerThroughput implements Callable<Integer> {
         OperatingSystemMXBean os = (OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean();
         long cpuStart = os.getProcessCpuTime();
         long start = System.nanoTime();
-        Map<Integer, Long> histogram = run(m);
+        Tally tally = run(m);
         double seconds = (System.nanoTime() - start) / 1e9;
         double cpu = (os.getProcessCpuTime() - cpuStart) / 1e9;
-        long n = histogram.values().stream().mapToLong(Long::longValue).sum();
+        long n = tally.predicted.values().stream().mapToLong(Long::longValue).sum();
         System.out.printf("candidates=%d seconds=%.3f rate=%.1f cpu_seconds=%.3f cpu_rate=%.1f%n", n, seconds,
                 n / seconds, cpu, n / cpu);
-        System.out.println("histogram=" + histogram);
+        System.out.println("histogram=" + tally.predicted);
+        System.out.println("comparable=" + tally.comparable);
+        StringBuilder sources = new StringBuilder("sources=");
+        for (RefinedH11Estimator.Source source : RefinedH11Estimator.Source.values()) {
+            sources.append(source.ordinal() > 0 ? "," : "").append(source.name().toLowerCase(Locale.ROOT)).append(':')
+                    .append(tally.sources[source.ordinal()]);
+        }
+        System.out.println(sources);
         return 0;
     }
 
-    private Map<Integer, Long> run(FrozenModel m) throws IOException, InterruptedException, ExecutionException {
+    /** Per worker, then summed: predicted h11, the deferring scorer's view, and the anchor's sources. */
+    private static final class Tally {
+        final Map<Integer, Long> predicted = new TreeMap<>();
+        final Map<Integer, Long> comparable = new TreeMap<>();
+        final long[] sources = new long[RefinedH11Estimator.Source.values().length];
+
+        void add(Tally o) {
+            o.predicted.forEach((k, v) -> predicted.merge(k, v, Long::sum));
+            o.comparable.forEach((k, v) -> comparable.merge(k, v, Long::sum));
+            for (int i = 0; i < sources.length; i++) {
+                sources[i] += o.sources[i];
+            }
+        }
+    }
+
+    private Tally run(FrozenModel m) throws IOException, InterruptedException, ExecutionException {
         BlockingQueue<String[]> queue = new ArrayBlockingQueue<>(2 * threads + 2);
         ExecutorService pool = Executors.newFixedThreadPool(threads);
-        List<Future<Map<Integer, Long>>> results = new ArrayList<>();
+        List<Future<Tally>> results = new ArrayList<>();
         try {
             for (int t = 0; t < threads; t++) {
                 results.add(pool.submit(() -> work(m.newPredictor(), queue)));
@@ -105,9 +131,9 @@ public final class ScorerThroughput implements Callable<Integer> {
                     queue.put(END);
                 }
             }
-            Map<Integer, Long> total = new TreeMap<>();
-            for (Future<Map<Integer, Long>> f : results) {
-                f.get().forEach((k, v) -> total.merge(k, v, Long::sum));
+            Tally total = new Tally();
+            for (Future<Tally> f : results) {
+                total.add(f.get());
             }
             return total;
         } finally {
@@ -115,9 +141,8 @@ public final class ScorerThroughput implements Callable<Integer> {
         }
     }
 
-    private static Map<Integer, Long> work(Predictor p, BlockingQueue<String[]> queue) throws InterruptedException {
-        Map<Integer, Long> histogram = new TreeMap<>();
-        long[] small = new long[256];
+    private static Tally work(Predictor p, BlockingQueue<String[]> queue) throws InterruptedException {
+        Tally tally = new Tally();
         while (true) {
             String[] block = queue.take();
             if (block == END) {
@@ -126,19 +151,13 @@ public final class ScorerThroughput implements Callable<Integer> {
             for (String line : block) {
                 CandidateLine c = CandidateLine.parse(line, 0);
                 int h11 = p.score(c.config(), c.chi());
-                if (h11 >= 0 && h11 < small.length) {
-                    small[h11]++;
-                } else {
-                    histogram.merge(h11, 1L, Long::sum);
-                }
+                RefinedH11Estimator.Source source = p.estimateSource();
+                tally.predicted.merge(h11, 1L, Long::sum);
+                tally.comparable.merge(source == RefinedH11Estimator.Source.FIRST_PAGE ? h11 : -1, 1L, Long::sum);
+                tally.sources[source.ordinal()]++;
             }
         }
-        for (int h = 0; h < small.length; h++) {
-            if (small[h] > 0) {
-                histogram.merge(h, small[h], Long::sum);
-            }
-        }
-        return histogram;
+        return tally;
     }
 
     private void writePredictions(FrozenModel m) throws IOException {
