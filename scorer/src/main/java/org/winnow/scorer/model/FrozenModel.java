@@ -19,7 +19,7 @@ public final class FrozenModel {
     private final ReferenceSet reference;
     private final Calibration calibration;
     private final TrainingMetadata metadata;
-    private final FlatIndex index;
+    private final NeighbourIndex index;
     private final int[] classOf;
     private final int[] residuals;
     private final int[] residualOf;
@@ -43,7 +43,9 @@ public final class FrozenModel {
         this.reference = reference;
         this.calibration = calibration;
         this.metadata = metadata;
-        this.index = new FlatIndex(reference.embeddings(), reference.dim());
+        // Anchored embeddings group by their integer last coordinate, which lets the search skip groups.
+        this.index = architecture.anchored() ? new AnchoredIndex(reference.embeddings(), reference.dim())
+                : new FlatIndex(reference.embeddings(), reference.dim());
         this.classOf = new int[reference.size()];
         for (int i = 0; i < reference.size(); i++) {
             int c = Arrays.binarySearch(calibration.classes(), reference.h11(i));
@@ -141,7 +143,7 @@ public final class FrozenModel {
         return parameters;
     }
 
-    FlatIndex index() {
+    NeighbourIndex index() {
         return index;
     }
 

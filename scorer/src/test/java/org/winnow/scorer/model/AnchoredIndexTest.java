@@ -1,0 +1,60 @@
+package org.winnow.scorer.model;
+
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+
+import java.util.Arrays;
+import java.util.SplittableRandom;
+import org.junit.jupiter.api.Test;
+
+class AnchoredIndexTest {
+    /** Points with an integer last coordinate, some of them repeated so that distances tie. */
+    private static double[] points(SplittableRandom rng, int n, int dim) {
+        double[] p = new double[n * dim];
+        for (int i = 0; i < n; i++) {
+            if (i > 0 && rng.nextInt(6) == 0) {
+                System.arraycopy(p, rng.nextInt(i) * dim, p, i * dim, dim);
+                continue;
+            }
+            for (int d = 0; d < dim - 1; d++) {
+                p[i * dim + d] = rng.nextGaussian() * (rng.nextBoolean() ? 0.1 : 2.0);
+            }
+            p[i * dim + dim - 1] = rng.nextInt(15);
+        }
+        return p;
+    }
+
+    @Test
+    void findsExactlyWhatTheFlatScanFinds() {
+        SplittableRandom rng = new SplittableRandom(31);
+        for (int round = 0; round < 6; round++) {
+            int dim = 2 + round % 4;
+            int n = 1 + rng.nextInt(700);
+            double[] p = points(rng, n, dim);
+            FlatIndex flat = new FlatIndex(p, dim);
+            AnchoredIndex anchored = new AnchoredIndex(p, dim);
+            for (int query = 0; query < 300; query++) {
+                double[] q = new double[dim];
+                if (rng.nextBoolean()) {
+                    System.arraycopy(p, rng.nextInt(n) * dim, q, 0, dim); // a reference point itself: ties
+                } else {
+                    for (int d = 0; d < dim - 1; d++) {
+                        q[d] = rng.nextGaussian();
+                    }
+                    q[dim - 1] = rng.nextInt(-3, 19) + (rng.nextBoolean() ? 0 : rng.nextDouble());
+                }
+                int k = 1 + rng.nextInt(9);
+                int exclude = rng.nextBoolean() ? -1 : rng.nextInt(n);
+                int[] fi = new int[k];
+                double[] fd = new double[k];
+                int[] ai = new int[k];
+                double[] ad = new double[k];
+                int fFound = flat.search(q, k, exclude, fi, fd);
+                int aFound = anchored.search(q, k, exclude, ai, ad);
+                assertEquals(fFound, aFound);
+                assertArrayEquals(Arrays.copyOf(fi, fFound), Arrays.copyOf(ai, aFound), "query " + query);
+                assertArrayEquals(Arrays.copyOf(fd, fFound), Arrays.copyOf(ad, aFound), 0.0, "query " + query);
+            }
+        }
+    }
+}
