@@ -4,8 +4,8 @@
 # the forward pass against the machine's FMA rate. Prints candidates/s for each run, the ratios, and a
 # summary of `name: value` lines.
 #
-#   bench/compare.sh            # 10^6 four-fold candidates (8 rows at most) for winnow, 10^5 of them for numpy
-#   bench/compare.sh --quick    # 10^5 (7 rows at most) for winnow, 10^4 of them for numpy
+#   bench/compare.sh            # 10^6 four-fold candidates (lossless rules, 12 rows at most) for winnow, 10^5 of them for numpy
+#   bench/compare.sh --quick    # 10^5 (lossless, 7 rows at most) for winnow, 10^4 of them for numpy
 #
 # The last block is one `name: value` a line; `end-to-end/(scorer + exact invariants)` and
 # `winnow/numpy without the estimate` say how much of each ratio is the work the other side skips.
@@ -15,7 +15,7 @@ set -euo pipefail
 here="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 count=1000000
 numpy_count=100000
-max_rows=8
+max_rows=12
 kafka_count=100000
 # Two epochs for both: on the toy labels longer training can collapse the learned coordinates (4 epochs
 # on the 8-row file left 663 distinct reference embeddings of 7890), and exact ties then send numpy's
@@ -60,14 +60,17 @@ java_opts=(-Xmx2g)
 
 # Four-folds: the three-fold space is too small to time a deduplicating scan on (10^5 draws hold
 # under 6,000 canonical forms). The producer's enumeration, at an even stride, gives distinct lines.
-cands="$work/candidates-4-$count.tsv"
+# The producer's default rule set: under `base` most of the extra matrices are redundant descriptions
+# whose first pages are unsettled, and the Hodge engine's time on them would swamp the comparison.
+rules="${COMPARE_RULES:-lossless}"
+cands="$work/candidates-4-$rules-$max_rows-$count.tsv"
 if [ ! -f "$cands" ]; then
-  say "compare: generating $count four-fold candidates (base rules, at most $max_rows rows)"
-  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.GenerateCandidates --dim 4 --max-rows "$max_rows" \
-    --count "$count" --out "$cands"
+  say "compare: generating $count four-fold candidates ($rules rules, at most $max_rows rows)"
+  java "${java_opts[@]}" -cp "$bench" org.winnow.bench.GenerateCandidates --dim 4 --rules "$rules" \
+    --max-rows "$max_rows" --count "$count" --out "$cands"
 fi
 count=$(wc -l < "$cands")
-model="$work/model-4-$count.wnm"
+model="$work/model-4-$rules-$max_rows-$count.wnm"
 if [ ! -f "$model" ]; then
   say "compare: training the bench model (default architecture, 7890 four-folds of the file, toy labels, $epochs epochs)"
   java "${java_opts[@]}" -cp "$bench" org.winnow.bench.BenchModel --from "$cands" --epochs "$epochs" \

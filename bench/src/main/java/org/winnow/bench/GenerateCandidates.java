@@ -30,7 +30,7 @@ import picocli.CommandLine.Option;
  * give under 6,000 canonical forms), so a deduplicating scan scores only the distinct lines.
  *
  * <p>{@code --dim 4}: what the producer gives, distinct four-fold matrices of the enumeration under
- * the {@code base} rules with at most {@code --max-rows} rows, taken at an even stride over the whole
+ * {@code --rules} (default {@code lossless}, the producer's default) with at most {@code --max-rows} rows, taken at an even stride over the whole
  * enumeration so that every row count is represented in proportion (the enumeration's first matrices
  * are all small). If the space holds fewer than {@code count} matrices, all of them are written. The
  * seed is not used: the enumeration is deterministic.
@@ -51,6 +51,10 @@ public final class GenerateCandidates implements Callable<Integer> {
     @Option(names = "--dim", defaultValue = "3", description = "3: synthetic draws; 4: the producer's enumeration (default ${DEFAULT-VALUE}).")
     int dim;
 
+    @Option(names = "--rules", defaultValue = "lossless",
+            description = "Rule set of the enumeration, --dim 4 only: base, split, lossless or short (default ${DEFAULT-VALUE}).")
+    String rules;
+
     @Option(names = "--max-rows", defaultValue = "7", description = "Most rows, --dim 4 only (default ${DEFAULT-VALUE}).")
     int maxRows;
 
@@ -63,7 +67,14 @@ public final class GenerateCandidates implements Callable<Integer> {
         if (dim == 3) {
             write(count, seed, out);
         } else if (dim == 4) {
-            long written = writeEnumerated(count, maxRows, out);
+            RuleSet ruleSet;
+            try {
+                ruleSet = RuleSet.byName(rules);
+            } catch (IllegalArgumentException e) {
+                System.err.println("generate-candidates: --rules: " + e.getMessage());
+                return 2;
+            }
+            long written = writeEnumerated(count, maxRows, ruleSet, out);
             if (written < count) {
                 System.err.printf("generate-candidates: the space holds only %d matrices; all written%n", written);
             }
@@ -75,20 +86,20 @@ public final class GenerateCandidates implements Callable<Integer> {
     }
 
     /**
-     * Writes up to {@code count} four-fold matrices of the {@code base} enumeration with at most
+     * Writes up to {@code count} four-fold matrices of the enumeration under {@code rules} with at most
      * {@code maxRows} rows, at an even stride over the whole enumeration; returns how many.
      */
-    static long writeEnumerated(long count, int maxRows, Path out) throws IOException {
+    static long writeEnumerated(long count, int maxRows, RuleSet rules, Path out) throws IOException {
         Bounds complete = Bounds.complete(4);
         Bounds bounds = new Bounds(4, complete.minRows(), maxRows, complete.maxCols(), complete.maxN(),
                 complete.maxEntry());
         Enumerator enumerator = new Enumerator();
-        long total = enumerator.count(bounds, RuleSet.BASE, ShardSpec.ALL).total();
+        long total = enumerator.count(bounds, rules, ShardSpec.ALL).total();
         long stride = Math.max(1, total / Math.max(1, count));
         InvariantCalculator calculator = new InvariantCalculator();
         long[] seen = {0, 0};
         try (BufferedWriter w = Files.newBufferedWriter(out, StandardCharsets.UTF_8)) {
-            enumerator.run(bounds, RuleSet.BASE, ShardSpec.ALL, e -> {
+            enumerator.run(bounds, rules, ShardSpec.ALL, e -> {
                 if (seen[0]++ % stride != 0 || seen[1] >= count) {
                     return;
                 }
