@@ -16,6 +16,7 @@ import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.SourceReport;
 import org.winnow.pipeline.kafka.ClusterRefusedException;
 import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.MetricsPublisher;
 import org.winnow.pipeline.kafka.RunTopics;
 import org.winnow.pipeline.kafka.TopicLayout;
@@ -61,6 +62,11 @@ final class ProduceCommand implements Callable<Integer> {
             description = "Candidates per transaction (default ${DEFAULT-VALUE}).")
     int chunk = 2000;
 
+    @Option(names = "--rejects",
+            description = "Carry rejected candidates whole, for a sink that writes them (winnow sink --rejects); "
+                    + "otherwise a rejected candidate crosses the wire as its key, seq and reason only.")
+    boolean rejects;
+
     @Option(names = "--strict", description = "Fail on the first malformed input line instead of skipping it.")
     boolean strict;
 
@@ -77,7 +83,8 @@ final class ProduceCommand implements Callable<Integer> {
             // The input's bytes identify the run's source, so a second producer with another file is refused.
             String identity = input.getFileName() + " sha256:" + RunIds.of(List.of(), input);
             settings = new ClusterProducer.Settings(k, new RunTopics(run), new TopicLayout(partitions, replication),
-                    new InputFileSource(input), identity, strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP, chunk);
+                    new InputFileSource(input), identity, strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP, chunk,
+                    rejects ? RejectsOnWire.WHOLE : RejectsOnWire.SLIM);
         } catch (IllegalArgumentException e) {
             return fail(err, e.getMessage());
         }

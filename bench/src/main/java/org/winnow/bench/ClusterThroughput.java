@@ -26,6 +26,7 @@ import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.kafka.ExactlyOnceRelay;
 import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.RunTopics;
 import org.winnow.pipeline.kafka.TopicLayout;
 import org.winnow.scorer.model.Architecture;
@@ -53,7 +54,8 @@ import picocli.CommandLine.Parameters;
  * <p>Run with {@code bench/cluster-throughput.sh [candidates] [scorers]}, or on a given model and
  * candidate file with {@code --model M --input F} ({@code bench/compare.sh} does, on its four-fold bench
  * file; then {@code candidates} lines of F are used). The last line is
- * {@code scan_rate=R cluster_rate=Q counts_equal=B} for drivers. Not a test.
+ * {@code scan_rate=R cluster_rate=Q counts_equal=B} for drivers (of the last form given with {@code --rejects}).
+ * Not a test.
  */
 @Command(name = "cluster-throughput", mixinStandardHelpOptions = true)
 public final class ClusterThroughput implements Callable<Integer> {
@@ -69,8 +71,13 @@ public final class ClusterThroughput implements Callable<Integer> {
     @Option(names = "--input", description = "Candidate lines (the first `candidates` are used); default synthetic draws.")
     Path inputPath;
 
+    @Option(names = "--rejects", split = ",", paramLabel = "FORM",
+            description = "How the cluster runs carry rejected candidates, one cluster run per form in this order: "
+                    + "slim, whole (default ${DEFAULT-VALUE}).")
+    List<RejectsOnWire> forms = List.of(RejectsOnWire.SLIM);
+
     public static void main(String[] args) {
-        System.exit(new CommandLine(new ClusterThroughput()).execute(args));
+        System.exit(new CommandLine(new ClusterThroughput()).setCaseInsensitiveEnumValuesAllowed(true).execute(args));
     }
 
     @Override
@@ -113,43 +120,54 @@ public final class ClusterThroughput implements Callable<Integer> {
         Manifest scan = Manifest.read(dir.resolve("scan").resolve("manifest.json"));
 
         try (EmbeddedKafkaBroker broker = EmbeddedKafkaBroker.start()) {
-            KafkaSettings kafka = KafkaSettings.of(broker.bootstrapServers());
-            RunTopics run = new RunTopics("bench");
-            KeepRules rules = KeepRules.of(keeps, KeepRules.DEFAULT_MIN_CONFIDENCE, KeepRules.DEFAULT_NOVELTY_GUARD);
-            ModelScoring scoring = new ModelScoring(model);
-            ExecutorService threads = Executors.newFixedThreadPool(scorers + 1);
-            long t1 = System.nanoTime();
-            Future<?> producer = threads.submit(() -> ClusterProducer.run(new ClusterProducer.Settings(kafka, run,
-                    TopicLayout.singleBroker(Math.max(scorers, 1) * 2), new InputFileSource(input), input.toString(),
-                    BadInputPolicy.SKIP, 2000), new SimpleMeterRegistry()));
-            List<ClusterScorer> joined = new ArrayList<>();
-            for (int i = 0; i < scorers; i++) {
-                ClusterScorer s = join(kafka, run, "s" + i, scoring, rules);
-                joined.add(s);
-                threads.submit(s::run);
+            String last = null;
+            for (RejectsOnWire form : forms) {
+                last = clusterRun(broker, form, model, input, keeps, dir, scan, scanSeconds);
             }
-            Manifest cluster = ClusterSink.run(kafka, run, dir.resolve("cluster"), new SinkOptions(), Clock.systemUTC(),
-                    new SimpleMeterRegistry(), new AtomicBoolean(true));
-            double clusterSeconds = (System.nanoTime() - t1) / 1e9;
-            producer.get();
-            joined.forEach(ClusterScorer::stop);
-            threads.shutdown();
-            long candidates = cluster.counts().candidates();
-            Map<String, Long> sizes = topicSizes(kafka, run);
-            System.out.printf("candidates %d (scan %d); counts equal: %s%n", candidates, scan.counts().candidates(),
-                    scan.counts().equals(cluster.counts()));
-            System.out.printf("winnow scan      %.1f s  %.0f candidates/s%n", scanSeconds,
-                    scan.counts().candidates() / scanSeconds);
-            System.out.printf("cluster (%d sc.)  %.1f s  %.0f candidates/s%n", scorers, clusterSeconds,
-                    candidates / clusterSeconds);
-            System.out.printf("bytes/candidate  candidates topic %.1f, scored topic %.1f%n",
-                    sizes.get(run.candidates()) / (double) candidates, sizes.get(run.scored()) / (double) candidates);
-            joined.forEach(ClusterScorer::close);
-            System.out.printf("scan_rate=%.1f cluster_rate=%.1f counts_equal=%s%n",
-                    scan.counts().candidates() / scanSeconds, candidates / clusterSeconds,
-                    scan.counts().equals(cluster.counts()));
+            System.out.println(last);
         }
         return 0;
+    }
+
+    /** One cluster run over the scan's input; prints its figures and returns the line for drivers. */
+    private String clusterRun(EmbeddedKafkaBroker broker, RejectsOnWire form, FrozenModel model, Path input,
+            List<String> keeps, Path dir, Manifest scan, double scanSeconds) throws Exception {
+        KafkaSettings kafka = KafkaSettings.of(broker.bootstrapServers());
+        RunTopics run = new RunTopics("bench-" + form.text());
+        KeepRules rules = KeepRules.of(keeps, KeepRules.DEFAULT_MIN_CONFIDENCE, KeepRules.DEFAULT_NOVELTY_GUARD);
+        ModelScoring scoring = new ModelScoring(model);
+        ExecutorService threads = Executors.newFixedThreadPool(scorers + 1);
+        long t1 = System.nanoTime();
+        Future<?> producer = threads.submit(() -> ClusterProducer.run(new ClusterProducer.Settings(kafka, run,
+                TopicLayout.singleBroker(Math.max(scorers, 1) * 2), new InputFileSource(input), input.toString(),
+                BadInputPolicy.SKIP, 2000, form), new SimpleMeterRegistry()));
+        List<ClusterScorer> joined = new ArrayList<>();
+        for (int i = 0; i < scorers; i++) {
+            ClusterScorer s = join(kafka, run, "s" + i, scoring, rules);
+            joined.add(s);
+            threads.submit(s::run);
+        }
+        Manifest cluster = ClusterSink.run(kafka, run, dir.resolve("cluster-" + form.text()), new SinkOptions(),
+                Clock.systemUTC(), new SimpleMeterRegistry(), new AtomicBoolean(true));
+        double clusterSeconds = (System.nanoTime() - t1) / 1e9;
+        producer.get();
+        joined.forEach(ClusterScorer::stop);
+        threads.shutdown();
+        long candidates = cluster.counts().candidates();
+        Map<String, Long> sizes = topicSizes(kafka, run);
+        System.out.printf("candidates %d (scan %d); counts equal: %s%n", candidates, scan.counts().candidates(),
+                scan.counts().equals(cluster.counts()));
+        System.out.printf("winnow scan      %.1f s  %.0f candidates/s%n", scanSeconds,
+                scan.counts().candidates() / scanSeconds);
+        System.out.printf("cluster (%d sc., %s rejects)  %.1f s  %.0f candidates/s  (%.2f of scan)%n", scorers,
+                form.text(), clusterSeconds, candidates / clusterSeconds,
+                candidates / clusterSeconds / (scan.counts().candidates() / scanSeconds));
+        System.out.printf("bytes/candidate  candidates topic %.1f, scored topic %.1f%n",
+                sizes.get(run.candidates()) / (double) candidates, sizes.get(run.scored()) / (double) candidates);
+        joined.forEach(ClusterScorer::close);
+        return String.format(java.util.Locale.ROOT, "scan_rate=%.1f cluster_rate=%.1f counts_equal=%s",
+                scan.counts().candidates() / scanSeconds, candidates / clusterSeconds,
+                scan.counts().equals(cluster.counts()));
     }
 
     /** Joins once the producer has created the run; until then the run is refused. */

@@ -142,8 +142,24 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         } else if (options.writeRejects()) {
             rejects.append(RejectLine.format(s));
         }
-        counts.merge(s.reason(), 1L, Long::sum);
-        metrics.record(s.reason());
+        count(s.reason());
+    }
+
+    /**
+     * Counts the rejection of the candidate at {@code seq} without its record, for a source that does not
+     * carry rejected candidates whole (a cluster run with slim rejects). A sink that writes rejects needs
+     * the record, so it refuses this rather than write a line without a candidate.
+     */
+    public void acceptRejected(long seq, Reason reason) throws IOException {
+        Checks.requireState(!options.writeRejects(), "the sink writes rejects but got seq %s without its record", seq);
+        Checks.requireArgument(reason.verdict() == Verdict.REJECT, "%s is not a reason to reject", reason.code());
+        Checks.requireState(seq == nextSeq, "sink expected seq %s but got %s", nextSeq, seq);
+        count(reason);
+    }
+
+    private void count(Reason reason) throws IOException {
+        counts.merge(reason, 1L, Long::sum);
+        metrics.record(reason);
         nextSeq++;
         sinceCheckpoint++;
         if (survivors.hasSealed() || rejects.hasSealed() || sinceCheckpoint >= options.checkpointRecords()

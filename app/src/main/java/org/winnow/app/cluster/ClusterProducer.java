@@ -26,6 +26,7 @@ import org.winnow.pipeline.kafka.ClusterRefusedException;
 import org.winnow.pipeline.kafka.KafkaSettings;
 import org.winnow.pipeline.kafka.KryoCodec;
 import org.winnow.pipeline.kafka.KryoSerde;
+import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.RunAdmin;
 import org.winnow.pipeline.kafka.RunDescriptor;
 import org.winnow.pipeline.kafka.RunTopics;
@@ -48,9 +49,13 @@ public final class ClusterProducer {
     private ClusterProducer() {
     }
 
-    /** Settings of one producer run. */
+    /**
+     * Settings of one producer run.
+     *
+     * @param rejects how the run's scorers send rejected candidates, a setting of the run like its source
+     */
     public record Settings(KafkaSettings kafka, RunTopics run, TopicLayout layout, CandidateSource source,
-            String sourceIdentity, BadInputPolicy policy, int chunk) {
+            String sourceIdentity, BadInputPolicy policy, int chunk, RejectsOnWire rejects) {
         public Settings {
             Objects.requireNonNull(kafka, "kafka");
             Objects.requireNonNull(run, "run");
@@ -58,6 +63,7 @@ public final class ClusterProducer {
             Objects.requireNonNull(source, "source");
             Objects.requireNonNull(sourceIdentity, "sourceIdentity");
             Objects.requireNonNull(policy, "policy");
+            Objects.requireNonNull(rejects, "rejects");
             org.winnow.geometry.Checks.requireArgument(chunk >= 1, "chunk must be positive: %s", chunk);
         }
     }
@@ -114,11 +120,12 @@ public final class ClusterProducer {
      * Creates the run's topics and descriptor if needed; idempotent, and what {@link #run} does first.
      *
      * @throws ClusterRefusedException when the broker does not answer or the run exists with another source
+     *     or another form of rejects
      */
     public static void createRun(Settings s) {
         try (RunAdmin admin = RunAdmin.connect(s.kafka())) {
             admin.createRun(s.run(), s.layout(), new RunDescriptor(s.run().runId(),
-                    Map.of("source", s.sourceIdentity())));
+                    Map.of("source", s.sourceIdentity(), RejectsOnWire.SETTING, s.rejects().text())));
         }
     }
 

@@ -5,13 +5,17 @@ import java.util.Objects;
 import org.winnow.pipeline.Candidate;
 import org.winnow.pipeline.Scored;
 import org.winnow.pipeline.StageContext;
+import org.winnow.pipeline.Verdict;
 import org.winnow.pipeline.kafka.ClusterRefusedException;
 import org.winnow.pipeline.kafka.ExactlyOnceRelay;
 import org.winnow.pipeline.kafka.KafkaSettings;
 import org.winnow.pipeline.kafka.KryoCodec;
 import org.winnow.pipeline.kafka.KryoSerde;
+import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.RunAdmin;
 import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.kafka.ScoredTopicSerde;
+import org.winnow.pipeline.kafka.SlimReject;
 import org.winnow.pipeline.kafka.WireHeaders;
 import org.winnow.pipeline.kafka.WireTypes;
 import org.winnow.scorer.rules.KeepRules;
@@ -22,7 +26,8 @@ import org.winnow.scorer.stage.ScoringFunctions;
  * One scorer of a cluster run: the scan's own {@link ScorerStage}, fed from the run's candidates topic and
  * writing to its scored topic through an {@link ExactlyOnceRelay}, so that a scorer killed at any point
  * neither loses a candidate nor scores one twice. Several scorers of one run share the candidates in the
- * consumer group {@code winnow-<run>-scorers}.
+ * consumer group {@code winnow-<run>-scorers}. A run created with slim rejects ({@link RejectsOnWire}) gets
+ * each rejected candidate as a {@link SlimReject}.
  */
 public final class ClusterScorer implements AutoCloseable {
     /** The run claim under which the scorers' keep rules are recorded, one rule a line. */
@@ -33,9 +38,9 @@ public final class ClusterScorer implements AutoCloseable {
         return "winnow-" + run.runId() + "-scorers";
     }
 
-    private final ExactlyOnceRelay<Candidate, Scored> relay;
+    private final ExactlyOnceRelay<Candidate, Object> relay;
 
-    private ClusterScorer(ExactlyOnceRelay<Candidate, Scored> relay) {
+    private ClusterScorer(ExactlyOnceRelay<Candidate, Object> relay) {
         this.relay = relay;
     }
 
@@ -47,22 +52,23 @@ public final class ClusterScorer implements AutoCloseable {
      */
     public static ClusterScorer join(KafkaSettings settings, RunTopics run, String instance,
             ScoringFunctions scoring, KeepRules rules, MeterRegistry registry, ExactlyOnceRelay.Listener listener) {
+        RejectsOnWire rejects;
         try (RunAdmin admin = RunAdmin.connect(settings)) {
-            admin.requireRun(run);
+            rejects = RejectsOnWire.of(admin.requireRun(run));
             admin.claimModel(run, scoring.modelChecksum());
             admin.claim(run, RULES_CLAIM, String.join("\n", rules.describe()));
         }
         KryoCodec codec = WireTypes.stages().build();
         ScorerStage stage = new ScorerStage(scoring, rules, System::nanoTime);
-        ForwardingContext ctx = new ForwardingContext(registry, instance);
+        ForwardingContext ctx = new ForwardingContext(registry, instance, rejects);
         try {
             stage.open(ctx);
         } catch (Exception e) {
             throw new IllegalStateException("the scorer stage did not open: " + e.getMessage(), e);
         }
-        ExactlyOnceRelay<Candidate, Scored> relay = new ExactlyOnceRelay<>(settings,
+        ExactlyOnceRelay<Candidate, Object> relay = new ExactlyOnceRelay<>(settings,
                 ExactlyOnceRelay.Options.of(run.candidates(), run.scored(), group(run), instance),
-                KryoSerde.of(codec, Candidate.class), KryoSerde.of(codec, Scored.class), WireHeaders.forRun(run),
+                KryoSerde.of(codec, Candidate.class), ScoredTopicSerde.of(codec), WireHeaders.forRun(run),
                 WireHeaders.forRunAndModel(run, scoring.modelChecksum()),
                 (record, out) -> {
                     ctx.out = out;
@@ -93,15 +99,20 @@ public final class ClusterScorer implements AutoCloseable {
         relay.close();
     }
 
-    /** The scorer stage's way downstream: into the relay's current transaction, keyed by candidate key. */
+    /**
+     * The scorer stage's way downstream: into the relay's current transaction, keyed by candidate key, a
+     * rejected candidate slim when the run says so.
+     */
     private static final class ForwardingContext implements StageContext<Scored> {
         private final MeterRegistry registry;
         private final String instance;
-        private ExactlyOnceRelay.Emitter<Scored> out;
+        private final RejectsOnWire rejects;
+        private ExactlyOnceRelay.Emitter<Object> out;
 
-        ForwardingContext(MeterRegistry registry, String instance) {
+        ForwardingContext(MeterRegistry registry, String instance, RejectsOnWire rejects) {
             this.registry = Objects.requireNonNull(registry, "registry");
             this.instance = instance;
+            this.rejects = Objects.requireNonNull(rejects, "rejects");
         }
 
         @Override
@@ -126,7 +137,8 @@ public final class ClusterScorer implements AutoCloseable {
 
         @Override
         public void forward(Scored record) {
-            out.send(record.candidate().key(), record);
+            boolean slim = rejects == RejectsOnWire.SLIM && record.verdict() == Verdict.REJECT;
+            out.send(record.candidate().key(), slim ? SlimReject.of(record) : record);
         }
     }
 }

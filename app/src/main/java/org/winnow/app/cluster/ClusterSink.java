@@ -29,10 +29,13 @@ import org.winnow.pipeline.kafka.ClusterRefusedException;
 import org.winnow.pipeline.kafka.KafkaSettings;
 import org.winnow.pipeline.kafka.KryoCodec;
 import org.winnow.pipeline.kafka.KryoSerde;
+import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.RunAdmin;
 import org.winnow.pipeline.kafka.RunDescriptor;
 import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.kafka.ScoredTopicSerde;
 import org.winnow.pipeline.kafka.ShardProgress;
+import org.winnow.pipeline.kafka.SlimReject;
 import org.winnow.pipeline.kafka.WireHeaders;
 import org.winnow.pipeline.kafka.WireTypes;
 import org.winnow.sink.Manifest;
@@ -51,6 +54,9 @@ import org.winnow.sink.SurvivorSink;
  * not yet written. On restart the sink seeks there and drops what the checkpoint already holds (seq below
  * its {@code nextSeq}); the scored topic itself holds each candidate once, because the scorers write it
  * transactionally.
+ *
+ * <p>A run with slim rejects ({@link RejectsOnWire#SLIM}) has no rejected candidate to write, so a sink
+ * asked to write rejects is refused before it touches its directory.
  */
 public final class ClusterSink {
     /** How often the sink reports its position to {@link #group}. */
@@ -73,6 +79,8 @@ public final class ClusterSink {
      *
      * @param running polled between batches; when it turns false the sink stops with what it committed
      * @return the complete manifest, or null when stopped before the end
+     * @throws ClusterRefusedException when the run does not fit: missing, or slim rejects for a sink that
+     *     writes rejects
      */
     public static Manifest run(KafkaSettings settings, RunTopics run, Path out, SinkOptions options, Clock clock,
             MeterRegistry registry, AtomicBoolean running) throws IOException {
@@ -81,6 +89,11 @@ public final class ClusterSink {
         String rules;
         try (RunAdmin admin = RunAdmin.connect(settings)) {
             descriptor = admin.requireRun(run);
+            if (options.writeRejects() && RejectsOnWire.of(descriptor) == RejectsOnWire.SLIM) {
+                throw new ClusterRefusedException("run '" + run.runId() + "' carries rejected candidates slim, "
+                        + "so there are no rejects to write; drop --rejects, or create the run with "
+                        + "winnow produce --rejects");
+            }
             model = admin.claimedModel(run);
             rules = admin.claimed(run, ClusterScorer.RULES_CLAIM);
             while ((model == null || rules == null) && running.get()) {
@@ -115,7 +128,8 @@ public final class ClusterSink {
                         + " has no Kafka offsets in " + OffsetLog.FILE + "; was it written by winnow sink?");
             }
             sink.open(context(registry));
-            return consume(settings, run, out, codec, model, sink, position, resume, report, running);
+            return consume(settings, run, out, codec, model, sink, position, resume, report, running,
+                    options.writeRejects());
         } finally {
             try {
                 sink.close();
@@ -127,7 +141,7 @@ public final class ClusterSink {
 
     private static Manifest consume(KafkaSettings settings, RunTopics run, Path out, KryoCodec codec, String model,
             SurvivorSink sink, Position position, Map<Integer, Long> resume, AtomicReference<SourceReport> report,
-            AtomicBoolean running) throws IOException {
+            AtomicBoolean running, boolean writeRejects) throws IOException {
         Map<String, Object> p = new HashMap<>(settings.common());
         p.put(ConsumerConfig.ISOLATION_LEVEL_CONFIG, "read_committed");
         p.put(ConsumerConfig.ENABLE_AUTO_COMMIT_CONFIG, false);
@@ -136,8 +150,8 @@ public final class ClusterSink {
         WireHeaders planStamps = WireHeaders.forRun(run);
         Map<String, Object> withGroup = new HashMap<>(p);
         withGroup.put(ConsumerConfig.GROUP_ID_CONFIG, group(run));
-        try (KafkaConsumer<String, Scored> scored = new KafkaConsumer<>(withGroup, new StringDeserializer(),
-                KryoSerde.of(codec, Scored.class));
+        try (KafkaConsumer<String, Object> scored = new KafkaConsumer<>(withGroup, new StringDeserializer(),
+                ScoredTopicSerde.of(codec));
                 KafkaConsumer<String, ShardProgress> plan = new KafkaConsumer<>(p, new StringDeserializer(),
                         KryoSerde.of(codec, ShardProgress.class))) {
             List<TopicPartition> tps = new ArrayList<>();
@@ -164,8 +178,13 @@ public final class ClusterSink {
                         report.set(r.value().report());
                     }
                 }
-                for (ConsumerRecord<String, Scored> r : scored.poll(Duration.ofMillis(200))) {
-                    scoredStamps.check(r.headers(), r.topic() + "-" + r.partition() + "@" + r.offset());
+                for (ConsumerRecord<String, Object> r : scored.poll(Duration.ofMillis(200))) {
+                    String where = r.topic() + "-" + r.partition() + "@" + r.offset();
+                    scoredStamps.check(r.headers(), where);
+                    if (writeRejects && r.value() instanceof SlimReject) {
+                        throw new ClusterRefusedException("record " + where + " is a slim reject, but this sink"
+                                + " writes rejects; the run's scorers do not follow its settings");
+                    }
                     position.hold(r);
                 }
                 for (TopicPartition tp : tps) {
@@ -188,7 +207,7 @@ public final class ClusterSink {
     }
 
     /** Reports the sink's position to its monitoring group; a failed report only delays the lag figure. */
-    private static void report(KafkaConsumer<String, Scored> consumer, RunTopics run, Map<Integer, Long> at,
+    private static void report(KafkaConsumer<String, Object> consumer, RunTopics run, Map<Integer, Long> at,
             boolean last) {
         Map<TopicPartition, OffsetAndMetadata> offsets = new HashMap<>();
         at.forEach((partition, offset) -> offsets.put(new TopicPartition(run.scored(), partition),
@@ -209,13 +228,13 @@ public final class ClusterSink {
 
     /** The reorder buffer and what the next checkpoint must record. */
     private static final class Position {
-        private final TreeMap<Long, ConsumerRecord<String, Scored>> waiting = new TreeMap<>();
+        private final TreeMap<Long, ConsumerRecord<String, Object>> waiting = new TreeMap<>();
         private final Map<Integer, TreeSet<Long>> waitingOffsets = new HashMap<>();
         private final Map<Integer, Long> polledTo = new HashMap<>();
         private long nextSeq;
 
-        void hold(ConsumerRecord<String, Scored> r) {
-            long seq = r.value().seq();
+        void hold(ConsumerRecord<String, Object> r) {
+            long seq = ScoredTopicSerde.seq(r.value());
             if (seq < nextSeq) {
                 return;
             }
@@ -228,10 +247,14 @@ public final class ClusterSink {
 
         void release(SurvivorSink sink) throws IOException {
             while (!waiting.isEmpty() && waiting.firstKey() == nextSeq) {
-                ConsumerRecord<String, Scored> r = waiting.pollFirstEntry().getValue();
+                ConsumerRecord<String, Object> r = waiting.pollFirstEntry().getValue();
                 waitingOffsets.get(r.partition()).remove(r.offset());
                 nextSeq++;
-                sink.accept(r.value());
+                if (r.value() instanceof SlimReject slim) {
+                    sink.acceptRejected(slim.seq(), slim.reason());
+                } else {
+                    sink.accept((Scored) r.value());
+                }
             }
         }
 

@@ -85,6 +85,26 @@ class ClusterCommandsTest {
     }
 
     @Test
+    void aSinkAskedForRejectsOfARunWithSlimRejectsIsRefusedBeforeItWritesAnything() throws Exception {
+        Path input = Files.writeString(dir.resolve("in.txt"), "4:5\n2:3/2:3\n");
+        Run slim = winnow("produce", "--kafka", broker.bootstrapServers(), "--run", "slim-run", "--input",
+                input.toString(), "--partitions", "1");
+        assertEquals(0, slim.exit(), slim.err());
+        Path out = dir.resolve("rejects-out");
+        Run sink = winnow("sink", "--kafka", broker.bootstrapServers(), "--run", "slim-run", "--out", out.toString(),
+                "--rejects");
+        assertEquals(2, sink.exit(), sink.err());
+        assertEquals("winnow sink: run 'slim-run' carries rejected candidates slim, so there are no rejects to"
+                + " write; drop --rejects, or create the run with winnow produce --rejects", sink.err().strip());
+        assertTrue(!Files.exists(out), "nothing written");
+        // The same input again with --rejects is another run's settings, refused by the descriptor.
+        Run whole = winnow("produce", "--kafka", broker.bootstrapServers(), "--run", "slim-run", "--input",
+                input.toString(), "--partitions", "1", "--rejects");
+        assertEquals(2, whole.exit(), whole.err());
+        assertTrue(whole.err().contains("rejects: 'slim' vs 'whole'"), whole.err());
+    }
+
+    @Test
     void badRunIdsAndMissingFilesAreRefusedBeforeConnecting() {
         Run badId = winnow("sink", "--kafka", broker.bootstrapServers(), "--run", "a.b", "--out", dir.toString());
         assertEquals(2, badId.exit());

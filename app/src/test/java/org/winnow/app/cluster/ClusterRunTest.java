@@ -36,6 +36,7 @@ import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.kafka.ExactlyOnceRelay;
 import org.winnow.pipeline.kafka.KafkaSettings;
 import org.winnow.pipeline.kafka.MetricsPublisher;
+import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.RunTopics;
 import org.winnow.pipeline.kafka.TopicLayout;
 import org.winnow.pipeline.metrics.StageKind;
@@ -83,7 +84,8 @@ class ClusterRunTest {
         KafkaSettings kafka = KafkaSettings.of(broker.bootstrapServers());
         RunTopics run = new RunTopics("equivalence");
         ClusterProducer.Settings produce = new ClusterProducer.Settings(kafka, run, TopicLayout.singleBroker(3),
-                new InputFileSource(input.file()), input.file().toString(), BadInputPolicy.SKIP, 40);
+                new InputFileSource(input.file()), input.file().toString(), BadInputPolicy.SKIP, 40,
+                RejectsOnWire.SLIM);
         ClusterProducer.createRun(produce);
         SimpleMeterRegistry producerMeters = new SimpleMeterRegistry();
         try (MetricsPublisher p = snapshots(kafka, run, StageKind.PRODUCE, "producer", producerMeters)) {

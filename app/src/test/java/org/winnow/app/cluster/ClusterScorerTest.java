@@ -36,9 +36,12 @@ import org.winnow.pipeline.kafka.ExactlyOnceRelay;
 import org.winnow.pipeline.kafka.KafkaSettings;
 import org.winnow.pipeline.kafka.KryoCodec;
 import org.winnow.pipeline.kafka.KryoSerde;
+import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.RunAdmin;
 import org.winnow.pipeline.kafka.RunDescriptor;
 import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.pipeline.kafka.ScoredTopicSerde;
+import org.winnow.pipeline.kafka.SlimReject;
 import org.winnow.pipeline.kafka.TopicLayout;
 import org.winnow.pipeline.kafka.WireHeaders;
 import org.winnow.pipeline.kafka.WireTypes;
@@ -86,7 +89,7 @@ class ClusterScorerTest {
             Future<?> fb = threads.submit(sb::run);
             awaitAssigned(ClusterScorer.group(run), 2);
             write(run, candidates);
-            List<ConsumerRecord<String, Scored>> out = readScored(run, candidates.size());
+            List<ConsumerRecord<String, Object>> out = readScored(run, candidates.size());
             sa.stop();
             sb.stop();
             fa.get(30, TimeUnit.SECONDS);
@@ -94,9 +97,10 @@ class ClusterScorerTest {
 
             CandidateScorer direct = CandidateScorer.of(scoring(CHECKSUM), RULES);
             Map<String, Scored> byKey = new HashMap<>();
-            for (ConsumerRecord<String, Scored> r : out) {
-                assertEquals(r.key(), r.value().candidate().key());
-                assertTrue(byKey.put(r.key(), r.value()) == null, "scored twice: " + r.key());
+            for (ConsumerRecord<String, Object> r : out) {
+                Scored s = (Scored) r.value();
+                assertEquals(r.key(), s.candidate().key());
+                assertTrue(byKey.put(r.key(), s) == null, "scored twice: " + r.key());
             }
             assertEquals(candidates.size(), byKey.size());
             long rejected = 0;
@@ -111,6 +115,41 @@ class ClusterScorerTest {
         } finally {
             sa.close();
             sb.close();
+            threads.shutdownNow();
+        }
+    }
+
+    @Test
+    void aRunWithSlimRejectsGetsEachRejectionAsItsSeqAndReasonAndEachKeptCandidateWhole() throws Exception {
+        RunTopics run = createRun("score-slim", 2, Map.of(RejectsOnWire.SETTING, RejectsOnWire.SLIM.text()));
+        List<Candidate> candidates = candidates();
+        ExecutorService threads = Executors.newSingleThreadExecutor();
+        ClusterScorer scorer = join(run, "slim", CHECKSUM, RULES, new AtomicLong());
+        try {
+            Future<?> f = threads.submit(scorer::run);
+            write(run, candidates);
+            List<ConsumerRecord<String, Object>> out = readScored(run, candidates.size());
+            scorer.stop();
+            f.get(30, TimeUnit.SECONDS);
+
+            CandidateScorer direct = CandidateScorer.of(scoring(CHECKSUM), RULES);
+            Map<String, Object> byKey = new HashMap<>();
+            for (ConsumerRecord<String, Object> r : out) {
+                assertTrue(byKey.put(r.key(), r.value()) == null, "scored twice: " + r.key());
+                assertEquals(r.value() instanceof SlimReject, r.headers().lastHeader(ScoredTopicSerde.KIND) != null);
+            }
+            assertEquals(candidates.size(), byKey.size());
+            long slim = 0;
+            for (Candidate c : candidates) {
+                Scored expected = direct.score(c);
+                boolean rejected = expected.verdict() == org.winnow.pipeline.Verdict.REJECT;
+                assertEquals(rejected ? new SlimReject(c.shard(), c.seq(), expected.reason()) : expected,
+                        byKey.get(c.key()), c.key());
+                slim += rejected ? 1 : 0;
+            }
+            assertTrue(slim > 0 && slim < candidates.size(), "slim and whole records both met: " + slim);
+        } finally {
+            scorer.close();
             threads.shutdownNow();
         }
     }
@@ -220,9 +259,13 @@ class ClusterScorerTest {
     }
 
     private RunTopics createRun(String id, int partitions) {
+        return createRun(id, partitions, Map.of());
+    }
+
+    private RunTopics createRun(String id, int partitions, Map<String, String> settings) {
         RunTopics run = new RunTopics(id);
         try (RunAdmin admin = RunAdmin.connect(KafkaSettings.of(broker.bootstrapServers()))) {
-            admin.createRun(run, TopicLayout.singleBroker(partitions), new RunDescriptor(id, Map.of()));
+            admin.createRun(run, TopicLayout.singleBroker(partitions), new RunDescriptor(id, settings));
         }
         return run;
     }
@@ -244,14 +287,14 @@ class ClusterScorerTest {
         }
     }
 
-    private List<ConsumerRecord<String, Scored>> readScored(RunTopics run, int expected) {
+    private List<ConsumerRecord<String, Object>> readScored(RunTopics run, int expected) {
         Map<String, Object> p = new HashMap<>(KafkaSettings.of(broker.bootstrapServers()).common());
         p.put(ConsumerConfig.ISOLATION_LEVEL_CONFIG, "read_committed");
         p.put(ConsumerConfig.ENABLE_AUTO_COMMIT_CONFIG, false);
-        List<ConsumerRecord<String, Scored>> out = new ArrayList<>();
+        List<ConsumerRecord<String, Object>> out = new ArrayList<>();
         WireHeaders stamps = WireHeaders.forRunAndModel(run, CHECKSUM);
-        try (KafkaConsumer<String, Scored> consumer = new KafkaConsumer<>(p, new StringDeserializer(),
-                KryoSerde.of(WireTypes.stages().build(), Scored.class))) {
+        try (KafkaConsumer<String, Object> consumer = new KafkaConsumer<>(p, new StringDeserializer(),
+                ScoredTopicSerde.of(WireTypes.stages().build()))) {
             List<TopicPartition> tps = new ArrayList<>();
             for (int i = 0; i < consumer.partitionsFor(run.scored()).size(); i++) {
                 tps.add(new TopicPartition(run.scored(), i));
@@ -263,7 +306,7 @@ class ClusterScorerTest {
             while (System.nanoTime() < deadline
                     && (out.size() < expected || System.nanoTime() - quietSince < Duration.ofSeconds(2).toNanos())) {
                 var records = consumer.poll(Duration.ofMillis(200));
-                for (ConsumerRecord<String, Scored> r : records) {
+                for (ConsumerRecord<String, Object> r : records) {
                     stamps.check(r.headers(), r.topic() + "@" + r.offset());
                     out.add(r);
                     quietSince = System.nanoTime();

@@ -27,6 +27,7 @@ public final class WireTypes {
     public static final int SCORED = 123;
     public static final int VERDICT = 124;
     public static final int REASON = 125;
+    public static final int SLIM_REJECT = 126;
     public static final int SHARD_PROGRESS = 130;
     public static final int SOURCE_REPORT = 131;
     public static final int METRIC_SNAPSHOT = 140;
@@ -57,6 +58,7 @@ public final class WireTypes {
                 .register(Scored.class, SCORED)
                 .register(Verdict.class, VERDICT)
                 .register(Reason.class, REASON)
+                .register(SlimReject.class, SLIM_REJECT, SlimRejectSerializer::new)
                 .register(ShardProgress.class, SHARD_PROGRESS)
                 .register(SourceReport.class, SOURCE_REPORT, SourceReportSerializer::new);
     }
