@@ -35,11 +35,31 @@ public final class Compositions {
         fill(current, 0, sum, next);
     }
 
+    /**
+     * Built lists, shared: they are immutable, and the Hodge engine asks for the same few (parts, sum)
+     * pairs for every bundle of every configuration. Only small lists are kept, and only so many.
+     */
+    private static final java.util.concurrent.ConcurrentHashMap<Long, Compositions> SHARED =
+            new java.util.concurrent.ConcurrentHashMap<>();
+    private static final int SHARED_MAX_ENTRIES = 4096;
+    private static final long SHARED_MAX_SIZE = 1 << 14;
+
     /** The compositions of {@code sum >= 0} into {@code parts >= 1} parts. */
     public static Compositions of(int parts, int sum) {
-        Checks.requireArgument(parts >= 1, "parts must be at least 1: %d", parts);
-        Checks.requireArgument(sum >= 0, "sum must be nonnegative: %d", sum);
-        return new Compositions(parts, sum);
+        if (parts < 1 || sum < 0) {
+            Checks.requireArgument(parts >= 1, "parts must be at least 1: %d", parts);
+            Checks.requireArgument(sum >= 0, "sum must be nonnegative: %d", sum);
+        }
+        long key = ((long) parts << 32) | sum;
+        Compositions shared = SHARED.get(key);
+        if (shared != null) {
+            return shared;
+        }
+        Compositions made = new Compositions(parts, sum);
+        if (made.size() <= SHARED_MAX_SIZE && SHARED.size() < SHARED_MAX_ENTRIES) {
+            SHARED.putIfAbsent(key, made);
+        }
+        return made;
     }
 
     private void fill(int[] current, int pos, int rem, int[] next) {
@@ -82,10 +102,18 @@ public final class Compositions {
      * composition of {@link #sum()} (negative part or wrong total).
      */
     public int rank(int[] c, int offset) {
+        return rank(c, offset, false);
+    }
+
+    /**
+     * As {@link #rank(int[], int)}, of the composition {@code -c_i - 1} when {@code negated} (the shifted
+     * exponents of a top-degree factor), so that callers need not copy.
+     */
+    int rank(int[] c, int offset, boolean negated) {
         long rank = 0;
         int rem = sum;
         for (int i = 0; i < parts - 1; i++) {
-            int v = c[offset + i];
+            int v = negated ? -c[offset + i] - 1 : c[offset + i];
             if (v < 0 || v > rem) {
                 return -1;
             }
@@ -95,7 +123,8 @@ public final class Compositions {
             }
             rem -= v;
         }
-        if (c[offset + parts - 1] != rem) {
+        int last = negated ? -c[offset + parts - 1] - 1 : c[offset + parts - 1];
+        if (last != rem) {
             return -1;
         }
         return (int) rank;

@@ -39,18 +39,26 @@ public final class Polynomial {
         }
         int[][] mons = new int[monomials.length][];
         long[] coeffs = new long[coefficients.length];
+        // Plain ifs, not Checks: its varargs would box on every term, and the Hodge engine builds
+        // every defining polynomial of every configuration through here.
         for (int t = 0; t < monomials.length; t++) {
-            Checks.requireArgument(monomials[t].length == coords, "monomial %d has %d exponents, expected %d",
-                    t, monomials[t].length, coords);
+            if (monomials[t].length != coords) {
+                throw new IllegalArgumentException(String.format("monomial %d has %d exponents, expected %d",
+                        t, monomials[t].length, coords));
+            }
             int off = 0;
             for (int r = 0; r < n.length; r++) {
                 int deg = 0;
                 for (int i = 0; i <= n[r]; i++) {
-                    Checks.requireArgument(monomials[t][off + i] >= 0, "monomial %d has a negative exponent", t);
+                    if (monomials[t][off + i] < 0) {
+                        throw new IllegalArgumentException("monomial " + t + " has a negative exponent");
+                    }
                     deg += monomials[t][off + i];
                 }
-                Checks.requireArgument(deg == degrees[r], "monomial %d has degree %d in factor %d, expected %d",
-                        t, deg, r, degrees[r]);
+                if (deg != degrees[r]) {
+                    throw new IllegalArgumentException(String.format(
+                            "monomial %d has degree %d in factor %d, expected %d", t, deg, r, degrees[r]));
+                }
                 off += n[r] + 1;
             }
             mons[t] = monomials[t].clone();
@@ -65,8 +73,9 @@ public final class Polynomial {
      */
     public static int[][] monomialsOfDegree(int[] n, int[] degrees) {
         BottBasis basis = BottBasis.of(n, degrees);
-        Checks.requireArgument(basis.bottMask() == 0 && basis.degree() == 0,
-                "monomials need nonnegative degrees: %s", Arrays.toString(degrees));
+        if (basis.bottMask() != 0 || basis.degree() != 0) {
+            throw new IllegalArgumentException("monomials need nonnegative degrees: " + Arrays.toString(degrees));
+        }
         int[][] out = new int[basis.size()][];
         for (int i = 0; i < out.length; i++) {
             out[i] = basis.exponents(i);

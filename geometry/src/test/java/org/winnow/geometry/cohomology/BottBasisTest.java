@@ -76,4 +76,62 @@ class BottBasisTest {
         assertEquals(thirdThenSecond, secondThenThird);
         assertTrue(!thirdThenSecond.isZero(), "a nontrivial composite");
     }
+
+    /**
+     * The whole matrix against its definition, entry by entry: the sum over f's terms of
+     * {@link BottBasis#multiply} (which goes through exponent vectors and {@code indexOf}), on random
+     * products of projective spaces, random degrees of every Bott type, random polynomials. Brute-force
+     * oracle, common practice, no source.
+     */
+    @Test
+    void multiplicationMatrixEqualsTheTermByTermProductOnRandomCases() {
+        java.util.SplittableRandom rng = new java.util.SplittableRandom(20261202L);
+        int checked = 0;
+        int nonzero = 0;
+        for (int trial = 0; trial < 600; trial++) {
+            int m = 1 + rng.nextInt(3);
+            int[] n = new int[m];
+            int[] k = new int[m];
+            int[] fd = new int[m];
+            for (int r = 0; r < m; r++) {
+                n[r] = 1 + rng.nextInt(3);
+                // degree 0 side (k >= 0) or top side (k <= -n-1), small enough for explicit bases
+                k[r] = rng.nextBoolean() ? rng.nextInt(3) : -n[r] - 1 - rng.nextInt(3) - 2;
+                fd[r] = rng.nextInt(3);
+            }
+            BottBasis source = BottBasis.of(n, k);
+            int[] kt = new int[m];
+            for (int r = 0; r < m; r++) {
+                kt[r] = k[r] + fd[r];
+            }
+            BottBasis target = BottBasis.of(n, kt);
+            int[][] monomials = Polynomial.monomialsOfDegree(n, fd);
+            long[] coefficients = new long[monomials.length];
+            for (int t = 0; t < monomials.length; t++) {
+                coefficients[t] = rng.nextInt(4) == 0 ? 0 : 1 + rng.nextLong(org.winnow.geometry.linalg.ModP.P - 1);
+            }
+            Polynomial f = Polynomial.of(n, fd, monomials, coefficients);
+            if ((long) source.size() * f.terms() > 20_000) {
+                continue; // the oracle is slow; small cases cover every code path
+            }
+            ModPMatrix fast = source.multiplication(f, target);
+            ModPMatrix slow = new ModPMatrix(target.size(), source.size());
+            for (int s = 0; s < source.size(); s++) {
+                for (int t = 0; t < f.terms(); t++) {
+                    int row = source.multiply(s, f.monomial(t), target);
+                    if (row >= 0) {
+                        slow.set(row, s, org.winnow.geometry.linalg.ModP.add(slow.get(row, s), f.coefficient(t)));
+                    }
+                }
+            }
+            assertEquals(slow, fast, () -> java.util.Arrays.toString(n) + " " + java.util.Arrays.toString(k) + " + "
+                    + java.util.Arrays.toString(fd));
+            checked++;
+            if (!fast.isZero()) {
+                nonzero++;
+            }
+        }
+        assertTrue(checked > 300, "cases checked: " + checked);
+        assertTrue(nonzero > 100, "nonzero maps: " + nonzero);
+    }
 }
