@@ -3,14 +3,12 @@ package org.winnow.app;
 import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
-import java.util.List;
 import java.util.concurrent.Callable;
 import java.time.Clock;
 import org.winnow.app.cluster.ClusterProducer;
 import org.winnow.app.cluster.StageReporter;
 import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.app.scan.InputFileSource;
-import org.winnow.app.scan.RunIds;
 import org.winnow.pipeline.BadInputException;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.SourceReport;
@@ -80,8 +78,7 @@ final class ProduceCommand implements Callable<Integer> {
             }
             metrics.validate();
             KafkaSettings k = connection.settings();
-            // The input's bytes identify the run's source, so a second producer with another file is refused.
-            String identity = input.getFileName() + " sha256:" + RunIds.of(List.of(), input);
+            String identity = ClusterProducer.sourceIdentity(input);
             settings = new ClusterProducer.Settings(k, new RunTopics(run), new TopicLayout(partitions, replication),
                     new InputFileSource(input), identity, strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP, chunk,
                     rejects ? RejectsOnWire.WHOLE : RejectsOnWire.SLIM);

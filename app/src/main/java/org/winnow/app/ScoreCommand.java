@@ -9,7 +9,10 @@ import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicLong;
 import java.time.Clock;
+import java.time.Duration;
+import java.util.concurrent.CountDownLatch;
 import org.winnow.app.cluster.ClusterScorer;
+import org.winnow.app.cluster.ShutdownGrace;
 import org.winnow.app.cluster.StageReporter;
 import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.pipeline.kafka.ClusterRefusedException;
@@ -96,19 +99,11 @@ final class ScoreCommand implements Callable<Integer> {
                 scored.addAndGet(inputs);
             }
         };
+        CountDownLatch finished = new CountDownLatch(1);
         try (ProcessMetrics process = metrics.open(err, "score");
                 ClusterScorer scorer = ClusterScorer.join(settings, topics, name, scoring, rules, process.registry(),
                         progress)) {
-            Thread main = Thread.currentThread();
-            Thread hook = new Thread(() -> {
-                scorer.stop();
-                try {
-                    main.join(15_000);
-                } catch (InterruptedException e) {
-                    Thread.currentThread().interrupt();
-                }
-            });
-            Runtime.getRuntime().addShutdownHook(hook);
+            ShutdownGrace.install(scorer::stop, finished, Duration.ofSeconds(15));
             err.println("winnow score: scorer " + name + " joined run " + run + " on " + connection.kafka);
             err.flush();
             try (MetricsPublisher snapshots = StageReporter.start(settings, topics, StageKind.SCORE, name,
@@ -122,6 +117,8 @@ final class ScoreCommand implements Callable<Integer> {
             return fail(err, e.getMessage());
         } catch (IOException e) {
             return fail(err, e.getMessage());
+        } finally {
+            finished.countDown();
         }
     }
 

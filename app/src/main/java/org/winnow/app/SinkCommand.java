@@ -6,8 +6,10 @@ import java.nio.file.Path;
 import java.time.Clock;
 import java.time.Duration;
 import java.util.concurrent.Callable;
+import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.atomic.AtomicBoolean;
 import org.winnow.app.cluster.ClusterSink;
+import org.winnow.app.cluster.ShutdownGrace;
 import org.winnow.app.cluster.StageReporter;
 import org.winnow.app.scan.ProcessMetrics;
 import org.winnow.pipeline.kafka.ClusterRefusedException;
@@ -73,15 +75,8 @@ final class SinkCommand implements Callable<Integer> {
             return fail(err, e.getMessage());
         }
         AtomicBoolean running = new AtomicBoolean(true);
-        Thread main = Thread.currentThread();
-        Runtime.getRuntime().addShutdownHook(new Thread(() -> {
-            running.set(false);
-            try {
-                main.join(15_000);
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-            }
-        }));
+        CountDownLatch finished = new CountDownLatch(1);
+        ShutdownGrace.install(() -> running.set(false), finished, Duration.ofSeconds(15));
         try (ProcessMetrics process = metrics.open(err, "sink")) {
             try (RunAdmin admin = RunAdmin.connect(settings)) {
                 admin.requireRun(topics);
@@ -105,6 +100,8 @@ final class SinkCommand implements Callable<Integer> {
             return fail(err, e.getMessage());
         } catch (IOException e) {
             return fail(err, e.getMessage());
+        } finally {
+            finished.countDown();
         }
     }
 

@@ -5,7 +5,9 @@ import java.io.PrintWriter;
 import java.time.Clock;
 import java.time.Duration;
 import java.util.concurrent.Callable;
+import java.util.concurrent.CountDownLatch;
 import java.util.concurrent.atomic.AtomicBoolean;
+import org.winnow.app.cluster.ShutdownGrace;
 import org.winnow.app.watch.DashboardServer;
 import org.winnow.app.watch.WatchState;
 import org.winnow.app.watch.WatchText;
@@ -73,17 +75,14 @@ final class WatchCommand implements Callable<Integer> {
                         + server.port() + "/");
                 err.flush();
                 AtomicBoolean running = new AtomicBoolean(true);
-                Thread main = Thread.currentThread();
-                Runtime.getRuntime().addShutdownHook(new Thread(() -> {
-                    running.set(false);
-                    try {
-                        main.join(5_000);
-                    } catch (InterruptedException e) {
-                        Thread.currentThread().interrupt();
-                    }
-                }));
-                boolean terminal = Terminal.stderrIsTerminal();
-                watcher.run(running, Duration.ofMillis(intervalMillis), state -> show(err, state, terminal));
+                CountDownLatch finished = new CountDownLatch(1);
+                ShutdownGrace.install(() -> running.set(false), finished, Duration.ofSeconds(5));
+                try {
+                    boolean terminal = Terminal.stderrIsTerminal();
+                    watcher.run(running, Duration.ofMillis(intervalMillis), state -> show(err, state, terminal));
+                } finally {
+                    finished.countDown();
+                }
                 return 0;
             }
         } catch (ClusterRefusedException e) {

@@ -1,6 +1,8 @@
 package org.winnow.app.cluster;
 
 import io.micrometer.core.instrument.MeterRegistry;
+import java.io.IOException;
+import java.nio.file.Path;
 import java.time.Duration;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -17,6 +19,7 @@ import org.apache.kafka.common.KafkaException;
 import org.apache.kafka.common.TopicPartition;
 import org.apache.kafka.common.serialization.StringDeserializer;
 import org.apache.kafka.common.serialization.StringSerializer;
+import org.winnow.app.scan.RunIds;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.Candidate;
 import org.winnow.pipeline.CandidateSource;
@@ -114,6 +117,14 @@ public final class ClusterProducer {
             commit(producer, s.run(), stamps, chunk, done.candidates(), done);
             return done;
         }
+    }
+
+    /**
+     * How a run fed from the file {@code input} names its source in the descriptor: the file's name and the
+     * SHA-256 of its bytes, so that a second producer of the run with another file is refused.
+     */
+    public static String sourceIdentity(Path input) throws IOException {
+        return input.getFileName() + " sha256:" + RunIds.of(List.of(), input);
     }
 
     /**

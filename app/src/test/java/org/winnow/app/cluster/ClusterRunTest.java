@@ -12,7 +12,6 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
 import java.time.Duration;
-import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ExecutorService;
@@ -43,7 +42,6 @@ import org.winnow.pipeline.metrics.StageKind;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.stage.ModelScoring;
 import org.winnow.sink.Manifest;
-import org.winnow.sink.ScanFiles;
 import org.winnow.sink.SinkOptions;
 import picocli.CommandLine;
 
@@ -56,10 +54,6 @@ import picocli.CommandLine;
 @KafkaBroker
 @Timeout(240)
 class ClusterRunTest {
-    private static final List<String> KEEPS = List.of("h11=2..5", "chi=-150..0");
-    private static final double MIN_CONFIDENCE = 0.5;
-    private static final double NOVELTY = 0.9;
-
     private final EmbeddedKafkaBroker broker;
 
     @TempDir
@@ -74,12 +68,7 @@ class ClusterRunTest {
         Path model = ScanFixtures.saveModel(dir);
         ScanFixtures.Input input = ScanFixtures.input(dir, 17L, 400);
         Path scanDir = dir.resolve("scan");
-        int exit = WinnowCli.commandLine().execute("scan", "--model", model.toString(), "--input",
-                input.file().toString(), "--keep", KEEPS.get(0), "--keep", KEEPS.get(1), "--min-confidence",
-                String.valueOf(MIN_CONFIDENCE), "--novelty", String.valueOf(NOVELTY), "--threads", "2", "--out",
-                scanDir.toString());
-        assertEquals(0, exit);
-        Manifest scan = Manifest.read(scanDir.resolve(ScanFiles.MANIFEST));
+        Manifest scan = ClusterFixtures.scan(model, input.file(), scanDir);
 
         KafkaSettings kafka = KafkaSettings.of(broker.bootstrapServers());
         RunTopics run = new RunTopics("equivalence");
@@ -92,7 +81,8 @@ class ClusterRunTest {
             ClusterProducer.run(produce, producerMeters);
         }
 
-        KeepRules rules = KeepRules.of(KEEPS, MIN_CONFIDENCE, NOVELTY);
+        KeepRules rules = KeepRules.of(ClusterFixtures.KEEPS, ClusterFixtures.MIN_CONFIDENCE,
+                ClusterFixtures.NOVELTY);
         ModelScoring scoring = ModelScoring.load(model);
         AtomicLong a = new AtomicLong();
         AtomicLong b = new AtomicLong();
@@ -135,10 +125,8 @@ class ClusterRunTest {
             pb.close();
 
             assertNotNull(cluster);
-            assertTrue(cluster.complete());
-            assertEquals(scan.counts(), cluster.counts());
+            ClusterFixtures.assertSameOutcome(scanDir, clusterDir, "a sink stopped and started again");
             assertEquals(scan.modelChecksum(), cluster.modelChecksum());
-            assertEquals(survivorLines(scanDir, scan), survivorLines(clusterDir, cluster));
             assertTrue(scan.counts().kept() > 0 && scan.counts().rejected() > 0, String.valueOf(scan.counts()));
             assertTrue(a.get() > 0 && b.get() > 0, "both scorers worked: a=" + a + " b=" + b);
             assertEquals(scan.counts().candidates(), a.get() + b.get());
@@ -196,18 +184,6 @@ class ClusterRunTest {
         try (MetricsPublisher p = snapshots(kafka, run, StageKind.SINK, "sink", meters)) {
             return ClusterSink.run(kafka, run, dir, options, Clock.systemUTC(), meters, running);
         }
-    }
-
-    private static List<String> survivorLines(Path dir, Manifest m) throws Exception {
-        List<String> lines = new ArrayList<>();
-        for (String f : m.survivorFiles()) {
-            for (String line : Files.readAllLines(dir.resolve(f))) {
-                if (!line.startsWith("#")) {
-                    lines.add(line);
-                }
-            }
-        }
-        return lines;
     }
 
     private static ExactlyOnceRelay.Listener counting(AtomicLong count) {
