@@ -5,7 +5,7 @@ import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Turns a configuration (and its exact chi) into the network's input graph: normalised row, column and
- * global features and the edge lists in both directions. Writes into a {@link Workspace}; allocates
+ * global features and, for networks with message-passing rounds, the edge lists in both directions. Writes into a {@link Workspace}; allocates
  * nothing.
  */
 final class FeatureEncoder {
@@ -28,6 +28,9 @@ final class FeatureEncoder {
         }
         ws.h11Estimate = globalFeatures(c, chi, ws.estimator, ws.g, 0);
         normalise(ws.g, 0, norm.globalMean(), norm.globalScale());
+        if (ws.arch.rounds() == 0) {
+            return; // only message passing reads the edges
+        }
         // Edges grouped by column (for row -> column messages) and by row (for column -> row messages).
         int e = 0;
         for (int j = 0; j < k; j++) {

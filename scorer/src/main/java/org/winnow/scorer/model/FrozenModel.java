@@ -20,6 +20,7 @@ public final class FrozenModel {
     private final Calibration calibration;
     private final TrainingMetadata metadata;
     private final NeighbourIndex index;
+    private final InferenceNetwork network;
     private final int[] classOf;
     private final int[] residuals;
     private final int[] residualOf;
@@ -43,6 +44,7 @@ public final class FrozenModel {
         this.reference = reference;
         this.calibration = calibration;
         this.metadata = metadata;
+        this.network = new InferenceNetwork(architecture, this.parameters);
         // Anchored embeddings group by their integer last coordinate, which lets the search skip groups.
         this.index = architecture.anchored() ? new AnchoredIndex(reference.embeddings(), reference.dim())
                 : new FlatIndex(reference.embeddings(), reference.dim());
@@ -101,7 +103,7 @@ public final class FrozenModel {
     public double[] embed(Configuration config, long chi) {
         Workspace ws = new Workspace(architecture);
         FeatureEncoder.encode(config, chi, normalisation, ws);
-        EmbeddingNetwork.forward(parameters, ws);
+        network.forward(ws);
         return ws.e.clone();
     }
 
@@ -139,8 +141,9 @@ public final class FrozenModel {
         return dimension;
     }
 
-    double[] rawParameters() {
-        return parameters;
+    /** The forward pass for scoring, its weights prepared at load. */
+    InferenceNetwork network() {
+        return network;
     }
 
     NeighbourIndex index() {

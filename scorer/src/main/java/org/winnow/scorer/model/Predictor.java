@@ -50,7 +50,7 @@ public final class Predictor {
      */
     public int score(Configuration config, long chi) {
         FeatureEncoder.encode(config, chi, model.normalisation(), ws);
-        EmbeddingNetwork.forward(model.rawParameters(), ws);
+        model.network().forward(ws);
         found = model.index().search(ws.e, searchK, -1, neighbours, distances);
         Calibration cal = model.calibration();
         int k = Math.min(cal.k(), found);

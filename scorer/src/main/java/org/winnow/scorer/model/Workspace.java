@@ -35,6 +35,8 @@ final class Workspace {
     final double[][] ar;
     final double[][] ac;
     final double[] z;
+    /** One node's state while the inference pass encodes and pools it. */
+    final double[] node;
     final int[] argmaxRow;
     final int[] argmaxCol;
     final double[] u;
@@ -58,6 +60,7 @@ final class Workspace {
         ar = new double[Math.max(1, arch.rounds())][MAX_R * h];
         ac = new double[Math.max(1, arch.rounds())][MAX_C * h];
         z = new double[arch.pooledWidth()];
+        node = new double[h];
         argmaxRow = new int[h];
         argmaxCol = new int[h];
         u = new double[arch.readout()];
