@@ -5,8 +5,8 @@ import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Turns a configuration (and its exact chi) into the network's input graph: normalised row, column and
- * global features and, for networks with message-passing rounds, the edge lists in both directions. Writes into a {@link Workspace}; allocates
- * nothing.
+ * global features and, for networks with message-passing rounds, the edge lists in both directions.
+ * Writes into a {@link Workspace}; allocates nothing.
  */
 final class FeatureEncoder {
     private FeatureEncoder() {}

@@ -57,4 +57,58 @@ class AnchoredIndexTest {
             }
         }
     }
+
+    @Test
+    void findsExactlyWhatTheFlatScanFindsOnLargeGroupsWithManyTies() {
+        // Thousands of points on a coarse grid: groups of hundreds of points cut into many leaves, and
+        // many distinct points at exactly equal distances from a query, so the index order must decide.
+        SplittableRandom rng = new SplittableRandom(77);
+        for (int round = 0; round < 4; round++) {
+            int dim = 3 + round * 2;
+            int n = 2000 + rng.nextInt(6000);
+            double[] p = new double[n * dim];
+            for (int i = 0; i < n; i++) {
+                for (int d = 0; d < dim - 1; d++) {
+                    p[i * dim + d] = rng.nextInt(-6, 7) * 0.25 + (round == 3 ? rng.nextGaussian() * 1e-3 : 0);
+                }
+                p[i * dim + dim - 1] = rng.nextInt(4) + (round % 2 == 0 ? 0 : 10 * rng.nextInt(2));
+            }
+            FlatIndex flat = new FlatIndex(p, dim);
+            AnchoredIndex anchored = new AnchoredIndex(p, dim);
+            for (int query = 0; query < 400; query++) {
+                double[] q = new double[dim];
+                for (int d = 0; d < dim - 1; d++) {
+                    q[d] = rng.nextBoolean() ? rng.nextInt(-7, 8) * 0.25 : rng.nextGaussian();
+                }
+                q[dim - 1] = rng.nextInt(-1, 6);
+                int k = 1 + rng.nextInt(query % 10 == 0 ? 300 : 12);
+                int exclude = rng.nextBoolean() ? -1 : rng.nextInt(n);
+                compare(flat, anchored, q, k, exclude);
+            }
+        }
+    }
+
+    @Test
+    void findsEveryPointWhenAskedForMoreThanThereAre() {
+        SplittableRandom rng = new SplittableRandom(3);
+        double[] p = points(rng, 90, 4);
+        AnchoredIndex anchored = new AnchoredIndex(p, 4);
+        int[] idx = new int[120];
+        double[] dist = new double[120];
+        assertEquals(90, anchored.search(new double[] {0, 0, 0, 40}, 120, -1, idx, dist));
+        assertEquals(89, anchored.search(new double[] {0, 0, 0, 40}, 120, 5, idx, dist));
+        compare(new FlatIndex(p, 4), anchored, new double[] {0.5, -1, 2, 7}, 120, 17);
+    }
+
+    private static void compare(FlatIndex flat, AnchoredIndex anchored, double[] q, int k, int exclude) {
+        int[] fi = new int[k];
+        double[] fd = new double[k];
+        int[] ai = new int[k];
+        double[] ad = new double[k];
+        int fFound = flat.search(q, k, exclude, fi, fd);
+        int aFound = anchored.search(q, k, exclude, ai, ad);
+        assertEquals(fFound, aFound);
+        assertArrayEquals(Arrays.copyOf(fi, fFound), Arrays.copyOf(ai, aFound), () -> Arrays.toString(q) + " k " + k);
+        assertArrayEquals(Arrays.copyOf(fd, fFound), Arrays.copyOf(ad, aFound), 0.0, () -> Arrays.toString(q));
+    }
 }
