@@ -13,16 +13,24 @@ import org.winnow.geometry.Checks;
  * at least its difference in any one coordinate). With a reference spread over twenty h11 values the
  * scan touches a few groups instead of every point.
  *
+ * <p>Within a group the anchor coordinate is the same for every point, so a group stores only the
+ * learned coordinates and adds the anchor's squared difference to each point's sum at the end, where a
+ * scan over all coordinates adds it (the anchor is the last coordinate).
+ *
  * <p>Results are those of one {@link FlatIndex} over all points, bit for bit: each group keeps its
- * points in reference order and sums coordinates in the same order, and the merge breaks equal
- * distances by the lower reference index, as the sequential scan does (tested against it).
+ * points in reference order and sums coordinates in the same order, and the groups' results are merged
+ * on squared distances, equal ones by the lower reference index, as the sequential scan ranks them
+ * (tested against it, ties included). Merging on the square roots, as an earlier version did, could
+ * swap two points: distinct squared distances can share a rounded square root, and the index then
+ * decided where the flat scan's squared distance did. The stopping test compares squared distances too
+ * and is exact in floating point: a point's squared distance is its anchor term plus a non-negative
+ * sum, and rounding is monotone, so it is never below its anchor term.
  */
 final class AnchoredIndex implements NeighbourIndex {
-    /** Slack on the stopping test, so that rounding in a computed distance never stops a scan early. */
-    private static final double STOP_SLACK = 1e-9;
-
     private final int n;
     private final int dim;
+    /** Coordinates stored per point in a group: all but the anchor. */
+    private final int stored;
     private final double[] anchors;
     private final FlatIndex[] groups;
     private final int[][] members;
@@ -65,15 +73,17 @@ final class AnchoredIndex implements NeighbourIndex {
             localIndex[i] = byGroup.get(g).size();
             byGroup.get(g).add(i);
         }
+        // A one-dimensional point is its anchor: its group stores that coordinate and adds no tail.
+        this.stored = dim > 1 ? dim - 1 : 1;
         this.groups = new FlatIndex[anchors.length];
         this.members = new int[anchors.length][];
         for (int g = 0; g < anchors.length; g++) {
             members[g] = byGroup.get(g).stream().mapToInt(Integer::intValue).toArray();
-            double[] mine = new double[members[g].length * dim];
+            double[] mine = new double[members[g].length * stored];
             for (int p = 0; p < members[g].length; p++) {
-                System.arraycopy(points, members[g][p] * dim, mine, p * dim, dim);
+                System.arraycopy(points, members[g][p] * dim, mine, p * stored, stored);
             }
-            groups[g] = new FlatIndex(mine, dim);
+            groups[g] = new FlatIndex(mine, stored);
         }
     }
 
@@ -113,15 +123,20 @@ final class AnchoredIndex implements NeighbourIndex {
             } else {
                 g = right++;
             }
-            double gap = Math.abs(anchors[g] - a);
-            if (found == k && gap > distance[k - 1] * (1 + STOP_SLACK) + STOP_SLACK) {
+            double diff = anchors[g] - a; // the flat scan's last term: coordinate minus query, squared
+            double tail = diff * diff;
+            if (found == k && tail > distance[k - 1]) {
                 break; // every further group is at least this far away
             }
             int localExclude = exclude >= 0 && groupOf[exclude] == g ? localIndex[exclude] : -1;
-            int got = groups[g].search(query, k, localExclude, s.index, s.distance);
+            int got = groups[g].searchSquared(query, k, localExclude, s.index, s.distance, dim > 1 ? tail : 0.0);
             for (int j = 0; j < got; j++) {
                 found = insert(members[g][s.index[j]], s.distance[j], k, found, index, distance);
             }
+        }
+        // distance[] held squared distances so far.
+        for (int j = 0; j < found; j++) {
+            distance[j] = Math.sqrt(distance[j]);
         }
         return found;
     }

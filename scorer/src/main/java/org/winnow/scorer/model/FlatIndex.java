@@ -60,10 +60,24 @@ public final class FlatIndex implements NeighbourIndex {
         if (k == 0) {
             return 0;
         }
+        int found = searchSquared(query, k, exclude, index, distance, 0.0);
+        for (int j = 0; j < found; j++) {
+            distance[j] = Math.sqrt(distance[j]);
+        }
+        return found;
+    }
+
+    /**
+     * The search on squared distances, each plus {@code tail} (a last coordinate's squared difference that
+     * is the same for every point, which the caller keeps out of the stored points), added after the
+     * stored coordinates as a scan over all coordinates would add it; {@code k} at least 1. Equal
+     * distances come in increasing index.
+     */
+    int searchSquared(double[] query, int k, int exclude, int[] index, double[] distance, double tail) {
         double[] s = partial.get();
         int found = 0;
         double bound = Double.POSITIVE_INFINITY; // the k-th best once k are found
-        // distance[] holds squared distances until the end, kept sorted ascending.
+        // distance[] holds squared distances, kept sorted ascending.
         for (int b = 0; b < blocks.length; b++) {
             double[][] block = blocks[b];
             int len = block[0].length;
@@ -83,7 +97,7 @@ public final class FlatIndex implements NeighbourIndex {
             }
             int base = b * BLOCK;
             for (int p = 0; p < len; p++) {
-                double d = s[p];
+                double d = s[p] + tail;
                 // Strictly closer than the k-th best, or room left: insert after all equal distances.
                 if ((d < bound || found < k) && base + p != exclude) {
                     int pos = found < k ? found : k - 1;
@@ -102,9 +116,6 @@ public final class FlatIndex implements NeighbourIndex {
                     }
                 }
             }
-        }
-        for (int j = 0; j < found; j++) {
-            distance[j] = Math.sqrt(distance[j]);
         }
         return found;
     }
