@@ -45,10 +45,15 @@ public final class IntersectionNumbers {
     private final int[] suppLen = new int[MAX_COLS];
     private final int[] indicator = new int[MAX_ROWS];
     private final int[] current = new int[MAX_ROWS];
+    /** The row owning each bit of a packed key, and the key of the exponent vector 0 (c = n). */
+    private final int[] rowOfBit = new int[64];
+    private long fullKey;
     /** Degree matrix, row-major with stride MAX_COLS, and per row the columns touching it. */
     final int[] q = new int[MAX_ROWS * MAX_COLS];
     final int[] rowCols = new int[MAX_ROWS * MAX_COLS];
     final int[] rowColLen = new int[MAX_ROWS];
+    /** Per row the set of columns touching it, as a bit mask (K <= 24 fits an int). */
+    final int[] rowMask = new int[MAX_ROWS];
     /** For d <= 4: the rows of each final exponent vector with multiplicity, 4 slots per entry. */
     int[] entryRows = new int[4 * 64];
 
@@ -144,12 +149,17 @@ public final class IntersectionNumbers {
     }
 
     private int decodeRows(long key, int[] out, int offset) {
+        // c_r <= n_r in every field, so n - c has no borrows: the difference packs the exponents a_r,
+        // and only the rows with a_r > 0 (at most d of them) are visited.
+        long a = fullKey - key;
         int len = 0;
-        for (int r = 0; r < m; r++) {
-            int a = n[r] - (int) ((key >>> shift[r]) & mask[r]);
-            for (int e = 0; e < a; e++) {
+        while (a != 0) {
+            int r = rowOfBit[Long.numberOfTrailingZeros(a)];
+            int e = (int) ((a >>> shift[r]) & mask[r]);
+            for (int i = 0; i < e; i++) {
                 out[offset + len++] = r;
             }
+            a &= ~(mask[r] << shift[r]);
         }
         return len;
     }
@@ -228,16 +238,23 @@ public final class IntersectionNumbers {
         int bits = 0;
         int ambient = 0;
         boolean cy = true;
+        long full = 0;
         for (int r = 0; r < m; r++) {
             n[r] = c.n(r);
             ambient += n[r];
             int width = 32 - Integer.numberOfLeadingZeros(n[r]);
             shift[r] = bits;
             mask[r] = (1L << width) - 1;
+            for (int b = bits; b < Math.min(64, bits + width); b++) {
+                rowOfBit[b] = r;
+            }
+            full |= (long) n[r] << bits;
             bits += width;
             remaining[r] = 0;
             rowColLen[r] = 0;
+            rowMask[r] = 0;
         }
+        fullKey = full;
         dim = ambient - k;
         if (bits > 64) {
             // Plain if: a varargs check would box its arguments on every call of the hot path.
@@ -257,6 +274,7 @@ public final class IntersectionNumbers {
                     suppDeg[base + len] = v;
                     suppLen[j] = len + 1;
                     rowCols[qBase + rowColLen[r]++] = j;
+                    rowMask[r] |= 1 << j;
                 } else if (r == 0) {
                     suppLen[j] = 0;
                 }

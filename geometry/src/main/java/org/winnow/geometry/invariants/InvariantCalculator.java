@@ -14,9 +14,17 @@ import org.winnow.geometry.Configuration;
  * sums {@code p_k = sum_r (n_r+1) J_r^k - sum_j D_j^k}):
  * {@code c_2 = -p_2/2}, {@code c_3 = p_3/3}, {@code c_4 = p_2^2/8 - p_4/4}. Each integral is a sum
  * over the nonzero intersection numbers {@code I(a)} of the coefficient of {@code J^a} in the
- * class, and that coefficient is a short sum over the columns, so the cost after the intersection
- * programme is about (number of nonzero {@code I(a)}) x K. Other input (not Calabi-Yau, or another
- * dimension) goes through the generic route of {@link ChernClasses}, which allocates.
+ * class. Write {@code p_2 = sum_{x,y} S_xy J_x J_y} with the symmetric integer matrix
+ * {@code S_xx = n_x + 1 - sum_j q_xj^2}, {@code S_xy = -sum_j q_xj q_yj}, formed once per input in
+ * {@code O(m^2)} word operations. Then the coefficient of {@code J_x J_y} in {@code p_2} is a table
+ * read, and that of {@code J_r0 J_r1 J_r2 J_r3} ({@code r0 <= .. <= r3}) in {@code p_2^2} is
+ * {@code (w/3)(S_r0r1 S_r2r3 + S_r0r2 S_r1r3 + S_r0r3 S_r1r2)}, w = 4!/prod(multiplicities!) the
+ * number of distinct orderings (the three pairings, each counted 8 times over the 24 orderings).
+ * The column moments {@code sum_j prod_i q_{r_i j}} of {@code p_3} and {@code p_4} run only over
+ * the columns touching every row of the monomial (an AND of per-row column masks), usually zero to
+ * two. A four-fold's chi, {@code int c_2^2} and degree come out of one pass over the entries. Other
+ * input (not Calabi-Yau, or another dimension) goes through the generic route of
+ * {@link ChernClasses}, which allocates.
  *
  * <p>Not thread-safe: one instance per thread. The Calabi-Yau paths of {@link #chi} and
  * {@link #threefold} allocate nothing once the workspace has grown.
@@ -25,17 +33,23 @@ public final class InvariantCalculator {
     private static final int MAX_ROWS = Configuration.MAX_ROWS;
     private static final int MAX_COLS = Configuration.MAX_COLS;
 
-    /** {@code len! / prod(run!)} for the multiplicity patterns of up to four rows, by pattern code. */
+    /** {@code k!} for the multiplicities of monomials of degree at most four. */
     private static final long[] FACTORIAL = {1, 1, 2, 6, 24};
+    /**
+     * {@code 4! / prod(multiplicity!)} of four ascending rows by the code
+     * {@code (r0 == r1) << 2 | (r1 == r2) << 1 | (r2 == r3)}.
+     */
+    private static final long[] ORDERINGS_OF_FOUR = {24, 12, 12, 4, 12, 6, 4, 1};
 
     private final IntersectionNumbers intersections = new IntersectionNumbers();
-    private final int[] rows = new int[MAX_ROWS];
-    private final int[] distinct = new int[4];
-    private final int[] counts = new int[4];
-    private final int[] sub = new int[4];
     private final long[] c2Sums = new long[MAX_ROWS];
+    /** The matrix S of {@code p_2} (see the class comment), stride MAX_ROWS. */
+    private final long[] pairs = new long[MAX_ROWS * MAX_ROWS];
     private final int[] labels = new int[MAX_ROWS];
     private final int[] scratch = new int[MAX_ROWS];
+    /** Results of the last four-fold pass: {@code int p_2^2} and the degree. */
+    private long p2SquaredSum;
+    private long fourfoldDegree;
 
     /** The intersection numbers of the last computation (valid until the next call). */
     public IntersectionNumbers intersections() {
@@ -52,21 +66,24 @@ public final class InvariantCalculator {
     public CheapInvariants compute(Configuration c) {
         int d = c.dimension();
         Checks.requireArgument(d >= 0, "%s has negative dimension %d: the generic complete intersection is empty", c, d);
-        int blocks = Blocks.of(Reduction.reduce(c)).count();
+        // Counting needs no Block records; reduce returns c itself (no allocation) when no column is a hyperplane.
+        int blocks = Blocks.label(Reduction.reduce(c), labels, scratch);
         List<TripleIntersection> triple = List.of();
         long[] c2J = new long[0];
         OptionalLong c2sq = OptionalLong.empty();
         long chi;
+        long degree;
         intersections.load(c);
         if (closedFormApplies()) {
             intersections.run();
             chi = chiLoaded();
+            degree = d == 4 ? fourfoldDegree : degree();
             if (d == 3) {
                 c2J = new long[c.rows()];
                 c2DotJThreefold(c2J);
                 triple = triples();
             } else if (d == 4) {
-                c2sq = OptionalLong.of(c2SquaredCalabiYau());
+                c2sq = OptionalLong.of(ExactMath.divideExactly(p2SquaredSum, 4, "int p2^2 of a four-fold"));
             }
         } else {
             ChernClasses chern = ChernClasses.of(c);
@@ -78,8 +95,9 @@ public final class InvariantCalculator {
             } else if (d == 4) {
                 c2sq = OptionalLong.of(chern.c2Squared());
             }
+            degree = degree();
         }
-        return new CheapInvariants(d, chi, blocks, degree(), triple, c2J, c2sq);
+        return new CheapInvariants(d, chi, blocks, degree, triple, c2J, c2sq);
     }
 
     /**
@@ -156,16 +174,18 @@ public final class InvariantCalculator {
 
     /** {@code sum_j prod_i q[rows[i]][j]} over the first len entries of rows (with multiplicity). */
     private long columnMoment(int[] rs, int off, int len) {
-        // Only columns touching rs[0] contribute; walk that row's column list.
+        // Only columns touching every row of the monomial contribute.
+        int[] rowMask = intersections.rowMask;
+        int cols = rowMask[rs[off]];
+        for (int e = 1; e < len; e++) {
+            cols &= rowMask[rs[off + e]];
+        }
         int[] q = intersections.q;
-        int[] cols = intersections.rowCols;
-        int base = rs[off] * MAX_COLS;
-        int count = intersections.rowColLen[rs[off]];
         long sum = 0;
-        for (int i = 0; i < count; i++) {
-            int j = cols[base + i];
-            long p = q[base + j];
-            for (int e = 1; e < len && p != 0; e++) {
+        for (; cols != 0; cols &= cols - 1) {
+            int j = Integer.numberOfTrailingZeros(cols);
+            long p = q[rs[off] * MAX_COLS + j];
+            for (int e = 1; e < len; e++) {
                 p = Math.multiplyExact(p, q[rs[off + e] * MAX_COLS + j]);
             }
             sum = Math.addExact(sum, p);
@@ -179,30 +199,40 @@ public final class InvariantCalculator {
      * moment.
      */
     private long powerSumCoefficient(int[] rs, int off, int len) {
-        long runs = 1;
-        int run = 1;
-        for (int i = off + 1; i < off + len; i++) {
-            if (rs[i] == rs[i - 1]) {
-                run++;
-            } else {
-                runs *= FACTORIAL[run];
-                run = 1;
-            }
-        }
-        runs *= FACTORIAL[run];
-        long multinomial = FACTORIAL[len] / runs;
-        long value = -Math.multiplyExact(multinomial, columnMoment(rs, off, len));
+        long value = -Math.multiplyExact(multinomial(rs, off, len), columnMoment(rs, off, len));
         if (rs[off] == rs[off + len - 1]) {
             value += intersections.n(rs[off]) + 1;
         }
         return value;
     }
 
-    /** Coefficient of {@code J_x J_y} in {@code p_2}. */
+    /**
+     * Fills {@link #pairs} for the loaded input: one pass over the row pairs sharing a column.
+     * Entries of row pairs without a shared column are written too (as 0), so no stale value of an
+     * earlier input is ever read.
+     */
+    private void loadPairs() {
+        int m = intersections.rows();
+        int[] q = intersections.q;
+        int[] rowMask = intersections.rowMask;
+        for (int x = 0; x < m; x++) {
+            for (int y = x; y < m; y++) {
+                long sum = 0;
+                for (int cols = rowMask[x] & rowMask[y]; cols != 0; cols &= cols - 1) {
+                    int j = Integer.numberOfTrailingZeros(cols);
+                    sum = Math.addExact(sum, Math.multiplyExact((long) q[x * MAX_COLS + j], q[y * MAX_COLS + j]));
+                }
+                long value = x == y ? intersections.n(x) + 1 - sum : -sum;
+                pairs[x * MAX_ROWS + y] = value;
+                pairs[y * MAX_ROWS + x] = value;
+            }
+        }
+    }
+
+    /** Coefficient of {@code J_x J_y} in {@code p_2}; needs {@link #loadPairs}. */
     private long p2Coefficient(int x, int y) {
-        sub[0] = Math.min(x, y);
-        sub[1] = Math.max(x, y);
-        return powerSumCoefficient(sub, 0, 2);
+        long s = pairs[x * MAX_ROWS + y];
+        return x == y ? s : Math.multiplyExact(2, s);
     }
 
     private long chiSurface() {
@@ -225,6 +255,7 @@ public final class InvariantCalculator {
 
     /** {@code c2.J_u = -(1/2) sum_{a: a_u > 0} coeff(p_2, a - e_u) I(a)}. */
     private void c2DotJThreefold(long[] out) {
+        loadPairs();
         int m = intersections.rows();
         for (int r = 0; r < m; r++) {
             c2Sums[r] = 0;
@@ -249,71 +280,75 @@ public final class InvariantCalculator {
         }
     }
 
-    /** Coefficient of {@code J^a} in {@code p_2^2}, a given by the ascending four rows in rows[]. */
-    private long p2SquaredCoefficient(int[] rs) {
-        int s = 0;
-        for (int i = 0; i < 4; i++) {
-            if (i == 0 || rs[i] != rs[i - 1]) {
-                distinct[s] = rs[i];
-                counts[s] = 0;
-                s++;
-            }
-            counts[s - 1]++;
-        }
-        long sum = 0;
-        // Ordered splits a = b + b' with |b| = |b'| = 2, b running over the sub-multisets of a.
-        for (int x = 0; x < s; x++) {
-            for (int y = x; y < s; y++) {
-                if (x == y && counts[x] < 2) {
-                    continue;
-                }
-                counts[x]--;
-                counts[y]--;
-                int rx = -1;
-                int ry = -1;
-                for (int z = 0; z < s; z++) {
-                    for (int e = 0; e < counts[z]; e++) {
-                        if (rx < 0) {
-                            rx = distinct[z];
-                        } else {
-                            ry = distinct[z];
-                        }
-                    }
-                }
-                counts[x]++;
-                counts[y]++;
-                long left = p2Coefficient(distinct[x], distinct[y]);
-                long right = p2Coefficient(rx, ry);
-                sum = Math.addExact(sum, Math.multiplyExact(left, right));
-            }
-        }
-        return sum;
-    }
-
+    /**
+     * chi of a four-fold, {@code int (p_2^2 - 2 p_4) / 8}, in one pass that also leaves
+     * {@code int p_2^2} and the degree in {@link #p2SquaredSum} and {@link #fourfoldDegree}.
+     */
     private long chiFourfold() {
-        long sum = 0;
+        loadPairs();
+        int[] entryRows = intersections.entryRows;
+        long p2Squared = 0;
+        long p4 = 0;
+        long degree = 0;
         for (int i = 0; i < intersections.size(); i++) {
-            intersections.rowsOf(i, rows);
-            long coeff = Math.subtractExact(p2SquaredCoefficient(rows), Math.multiplyExact(2, powerSumCoefficient(rows, 0, 4)));
-            sum = Math.addExact(sum, Math.multiplyExact(coeff, intersections.value(i)));
+            int r0 = entryRows[4 * i];
+            int r1 = entryRows[4 * i + 1];
+            int r2 = entryRows[4 * i + 2];
+            int r3 = entryRows[4 * i + 3];
+            long v = intersections.value(i);
+            int code = (r0 == r1 ? 4 : 0) | (r1 == r2 ? 2 : 0) | (r2 == r3 ? 1 : 0);
+            long orderings = ORDERINGS_OF_FOUR[code];
+            long pairings = Math.addExact(Math.addExact(
+                    Math.multiplyExact(pair(r0, r1), pair(r2, r3)),
+                    Math.multiplyExact(pair(r0, r2), pair(r1, r3))),
+                    Math.multiplyExact(pair(r0, r3), pair(r1, r2)));
+            // Exact: orderings is 6, 12 or 24, or the three pairings coincide (3 | pairings).
+            long p2SquaredCoefficient = Math.multiplyExact(orderings, pairings) / 3;
+            long p4Coefficient = -Math.multiplyExact(orderings, columnMoment(entryRows, 4 * i, 4));
+            if (code == 7) {
+                p4Coefficient += intersections.n(r0) + 1;
+            }
+            p2Squared = Math.addExact(p2Squared, Math.multiplyExact(p2SquaredCoefficient, v));
+            p4 = Math.addExact(p4, Math.multiplyExact(p4Coefficient, v));
+            degree = Math.addExact(degree, Math.multiplyExact(orderings, v));
         }
-        return ExactMath.divideExactly(sum, 8, "int (p2^2 - 2 p4) of a four-fold");
+        p2SquaredSum = p2Squared;
+        fourfoldDegree = degree;
+        return ExactMath.divideExactly(Math.subtractExact(p2Squared, Math.multiplyExact(2, p4)), 8,
+                "int (p2^2 - 2 p4) of a four-fold");
     }
 
-    /** {@code int c_2^2 = (1/4) int p_2^2} for a Calabi-Yau four-fold; needs the state of {@link #chi}. */
-    private long c2SquaredCalabiYau() {
-        long sum = 0;
-        for (int i = 0; i < intersections.size(); i++) {
-            intersections.rowsOf(i, rows);
-            sum = Math.addExact(sum, Math.multiplyExact(p2SquaredCoefficient(rows), intersections.value(i)));
+    private long pair(int x, int y) {
+        return pairs[x * MAX_ROWS + y];
+    }
+
+    /** {@code len! / prod a_r!} for the ascending row list rs of a monomial of degree {@code len <= 4}. */
+    private static long multinomial(int[] rs, int off, int len) {
+        long runs = 1;
+        int run = 1;
+        for (int i = off + 1; i < off + len; i++) {
+            if (rs[i] == rs[i - 1]) {
+                run++;
+            } else {
+                runs *= FACTORIAL[run];
+                run = 1;
+            }
         }
-        return ExactMath.divideExactly(sum, 4, "int p2^2 of a four-fold");
+        runs *= FACTORIAL[run];
+        return FACTORIAL[len] / runs;
     }
 
     /** {@code int_X (sum_r J_r)^d = sum_a (d!/prod a_r!) I(a)} from the current intersections. */
     private long degree() {
         int d = intersections.dimension();
         long sum = 0;
+        if (d <= 4) {
+            int[] entryRows = intersections.entryRows;
+            for (int i = 0; i < intersections.size(); i++) {
+                sum = Math.addExact(sum, Math.multiplyExact(multinomial(entryRows, 4 * i, d), intersections.value(i)));
+            }
+            return sum;
+        }
         for (int i = 0; i < intersections.size(); i++) {
             long multinomial = ExactMath.factorial(d);
             for (int r = 0; r < intersections.rows(); r++) {
