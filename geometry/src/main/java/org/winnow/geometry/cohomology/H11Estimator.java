@@ -40,7 +40,6 @@ public final class H11Estimator {
     private final int[] sums = new int[Configuration.MAX_ROWS];
     private final int[] excluded = new int[Configuration.MAX_ROWS];
     private final int[] order = new int[Configuration.MAX_COLS];
-    private final int[] position = new int[Configuration.MAX_COLS];
     /** Per column: the rows of its support, their degrees (both at {@code col * MAX_ROWS}), and its row mask. */
     private final int[] supportRow = new int[Configuration.MAX_COLS * Configuration.MAX_ROWS];
     private final int[] supportDegree = new int[Configuration.MAX_COLS * Configuration.MAX_ROWS];
@@ -48,6 +47,13 @@ public final class H11Estimator {
     private final int[] supportMask = new int[Configuration.MAX_COLS];
     /** Per row: the mask of the columns where it has a nonzero degree. */
     private final int[] rowColumns = new int[Configuration.MAX_ROWS];
+    /** The input copied into flat arrays: {@code n_r}, and the degrees row-major with stride MAX_COLS. */
+    private final int[] dims = new int[Configuration.MAX_ROWS];
+    private final int[] degrees = new int[Configuration.MAX_ROWS * Configuration.MAX_COLS];
+    /** {@code decided[j]}: the mask of the columns the search has placed in or out of S at depth j. */
+    private final int[] decided = new int[Configuration.MAX_COLS + 1];
+    private int rows;
+    private int cols;
     /** Per bundle and total degree 0..3: the smallest and largest Koszul column p of a nonzero entry. */
     private final int[] minP = new int[(Configuration.MAX_ROWS + Configuration.MAX_COLS) * 4];
     private final int[] maxP = new int[(Configuration.MAX_ROWS + Configuration.MAX_COLS) * 4];
@@ -64,12 +70,15 @@ public final class H11Estimator {
     public int estimate(Configuration config) {
         int m = config.rows();
         int k = config.cols();
+        rows = m;
+        cols = k;
         eulerOne = 0;
         eulerTwo = 0;
         conormalTwo = 0;
         for (int r = 0; r < m; r++) {
             sums[r] = 0;
             excluded[r] = 0;
+            dims[r] = config.n(r);
         }
         java.util.Arrays.fill(rowColumns, 0, m, 0);
         for (int j = 0; j < k; j++) {
@@ -77,6 +86,7 @@ public final class H11Estimator {
             int mask = 0;
             for (int r = 0; r < m; r++) {
                 int q = config.q(r, j);
+                degrees[r * Configuration.MAX_COLS + j] = q;
                 if (q != 0) {
                     supportRow[j * Configuration.MAX_ROWS + size] = r;
                     supportDegree[j * Configuration.MAX_ROWS + size] = q;
@@ -88,10 +98,10 @@ public final class H11Estimator {
             supportSize[j] = size;
             supportMask[j] = mask;
         }
-        orderColumns(config);
+        orderColumns();
         java.util.Arrays.fill(minP, 0, (m + k) * 4, Integer.MAX_VALUE);
         java.util.Arrays.fill(maxP, 0, (m + k) * 4, -1);
-        search(config, 0, 0, 0, 0);
+        search(0, 0, 0, 0);
         settled = settledPages(m, k);
         long kernel = Math.max(0, conormalTwo - eulerTwo);
         return Math.toIntExact(m + eulerOne + kernel);
@@ -104,13 +114,12 @@ public final class H11Estimator {
      * (for the {@code O(-J_i)} terms) or are all lifted past {@code n_r} by one column of S (the doubled
      * terms); since included and excluded masses only grow, a branch failing both is cut.
      */
-    private void search(Configuration c, int j, int subset, int size, int gapRows) {
-        int k = c.cols();
-        if (gapRows != 0 && !canStillContribute(c, j, subset, gapRows)) {
+    private void search(int j, int subset, int size, int gapRows) {
+        if (gapRows != 0 && !canStillContribute(j, subset, gapRows)) {
             return;
         }
-        if (j == k) {
-            leaf(c, subset, size);
+        if (j == cols) {
+            leaf(subset, size);
             return;
         }
         int col = order[j];
@@ -128,14 +137,14 @@ public final class H11Estimator {
             }
             excluded[r] += supportDegree[base + x];
         }
-        search(c, j + 1, subset, size, outGap);
+        search(j + 1, subset, size, outGap);
         for (int x = 0; x < len; x++) {
             int r = supportRow[base + x];
             int q = supportDegree[base + x];
             excluded[r] -= q;
             sums[r] += q;
         }
-        search(c, j + 1, subset | 1 << col, size + 1, inGap);
+        search(j + 1, subset | 1 << col, size + 1, inGap);
         for (int x = 0; x < len; x++) {
             sums[supportRow[base + x]] -= supportDegree[base + x];
         }
@@ -145,8 +154,8 @@ public final class H11Estimator {
      * Breadth-first column order over shared rows: a row then gets both an included and an excluded
      * column soon after it is first touched, so stuck rows, and cut branches, appear near the root.
      */
-    private void orderColumns(Configuration c) {
-        int k = c.cols();
+    private void orderColumns() {
+        int k = cols;
         int placed = 0;
         int seen = 0;
         for (int start = 0; start < k; start++) {
@@ -167,22 +176,25 @@ public final class H11Estimator {
             }
         }
         for (int j = 0; j < k; j++) {
-            position[order[j]] = j;
+            decided[j + 1] = decided[j] | 1 << order[j];
         }
     }
 
-    private boolean canStillContribute(Configuration c, int j, int subset, int gapRows) {
+    private boolean canStillContribute(int j, int subset, int gapRows) {
         if (Integer.bitCount(gapRows) == 1 && excluded[Integer.numberOfTrailingZeros(gapRows)] <= 1) {
             return true;
         }
-        for (int col = 0; col < c.cols(); col++) {
-            if ((gapRows & ~supportMask[col]) != 0 || (position[col] < j && (subset & (1 << col)) == 0)) {
-                continue; // misses a stuck row, or excluded already
-            }
+        // Only a column covering every stuck row and not excluded already can lift them.
+        int candidates = ((1 << cols) - 1) & ~(decided[j] & ~subset);
+        for (int g = gapRows; g != 0; g &= g - 1) {
+            candidates &= rowColumns[Integer.numberOfTrailingZeros(g)];
+        }
+        for (; candidates != 0; candidates &= candidates - 1) {
+            int col = Integer.numberOfTrailingZeros(candidates);
             boolean lifts = true;
             for (int g = gapRows; g != 0 && lifts; g &= g - 1) {
                 int r = Integer.numberOfTrailingZeros(g);
-                lifts = c.q(r, col) >= excluded[r];
+                lifts = degrees[r * Configuration.MAX_COLS + col] >= excluded[r];
             }
             if (lifts) {
                 return true;
@@ -191,12 +203,12 @@ public final class H11Estimator {
         return false;
     }
 
-    private void leaf(Configuration c, int subset, int size) {
+    private void leaf(int subset, int size) {
         int gap = 0;
         int gapDegree = 0;
         int fullDegree = 0;
-        for (int r = 0; r < c.rows(); r++) {
-            int n = c.n(r);
+        for (int r = 0; r < rows; r++) {
+            int n = dims[r];
             int s = sums[r];
             if (s > n) {
                 fullDegree += n;
@@ -205,21 +217,21 @@ public final class H11Estimator {
                 gapDegree += n;
             }
         }
-        visit(c, subset, size, gap, gapDegree, fullDegree);
+        visit(subset, size, gap, gapDegree, fullDegree);
     }
 
-    private void visit(Configuration c, int subset, int size, int gap, int gapDegree, int fullDegree) {
-        int m = c.rows();
+    private void visit(int subset, int size, int gap, int gapDegree, int fullDegree) {
+        int m = rows;
         // O(-J_i - q_S) at position (|S|, q): row i needs s_i >= n_i; every other row must be zero or full.
         if (gap == 0) {
             int t = fullDegree - size;
             if (t >= 0 && t <= 3) {
                 for (int i = 0; i < m; i++) {
-                    int n = c.n(i);
+                    int n = dims[i];
                     if (sums[i] >= n + 1) {
                         seen(i, t, size);
                         if (t == 1 || t == 2) {
-                            add(t, (n + 1) * fullProductExcept(c, i) * binomial(sums[i], n));
+                            add(t, (n + 1) * fullProductExcept(i) * binomial(sums[i], n));
                         }
                     }
                 }
@@ -228,11 +240,11 @@ public final class H11Estimator {
             int t = fullDegree + gapDegree - size;
             if (t >= 0 && t <= 3) {
                 for (int i = 0; i < m; i++) {
-                    int n = c.n(i);
+                    int n = dims[i];
                     if (sums[i] == n) { // the one gap row, lifted to degree -n-1 by the -J_i
                         seen(i, t, size);
                         if (t == 1 || t == 2) {
-                            add(t, (n + 1) * fullProductExcept(c, i));
+                            add(t, (n + 1) * fullProductExcept(i));
                         }
                         break;
                     }
@@ -247,27 +259,24 @@ public final class H11Estimator {
         if (gap == 0 && size > 0) {
             int t = fullDegree - size + 1;
             if (t >= 1 && t <= 3) {
-                for (int j = 0; j < c.cols(); j++) {
-                    if ((subset & (1 << j)) != 0) {
-                        seen(m + j, t, size - 1);
-                    }
+                for (int s = subset; s != 0; s &= s - 1) {
+                    seen(m + Integer.numberOfTrailingZeros(s), t, size - 1);
                 }
                 if (t == 2) {
-                    conormalTwo += size * fullProductExcept(c, -1);
+                    conormalTwo += size * fullProductExcept(-1);
                 }
             }
         }
         // O(-q_j - q_S) with j in S at position (|S|, q): rows in the gap must be pushed past n_r by q_rj.
         int t = fullDegree + gapDegree - size;
         if (size > 0 && t >= 1 && t <= 3) {
-            for (int j = 0; j < c.cols(); j++) {
-                if ((subset & (1 << j)) != 0) {
-                    long dim = doubledColumn(c, j);
-                    if (dim != 0) {
-                        seen(m + j, t, size);
-                        if (t == 2) {
-                            conormalTwo += dim;
-                        }
+            for (int s = subset; s != 0; s &= s - 1) {
+                int j = Integer.numberOfTrailingZeros(s);
+                long dim = doubledColumn(j);
+                if (dim != 0) {
+                    seen(m + j, t, size);
+                    if (t == 2) {
+                        conormalTwo += dim;
                     }
                 }
             }
@@ -303,14 +312,14 @@ public final class H11Estimator {
     }
 
     /** {@code h^top(A, O(-q_S - q_j))} when every non-zero row sum is full after adding column j; else 0. */
-    private long doubledColumn(Configuration c, int j) {
+    private long doubledColumn(int j) {
         long dim = 1;
-        for (int r = 0; r < c.rows(); r++) {
-            int a = sums[r] + c.q(r, j);
+        for (int r = 0; r < rows; r++) {
+            int a = sums[r] + degrees[r * Configuration.MAX_COLS + j];
             if (a == 0) {
                 continue;
             }
-            int n = c.n(r);
+            int n = dims[r];
             if (a <= n) {
                 return 0;
             }
@@ -320,10 +329,10 @@ public final class H11Estimator {
     }
 
     /** Product of {@code C(s_r - 1, n_r)} over the full rows other than {@code skip}. */
-    private long fullProductExcept(Configuration c, int skip) {
+    private long fullProductExcept(int skip) {
         long dim = 1;
-        for (int r = 0; r < c.rows(); r++) {
-            int n = c.n(r);
+        for (int r = 0; r < rows; r++) {
+            int n = dims[r];
             if (r != skip && sums[r] >= n + 1) {
                 dim = Math.multiplyExact(dim, binomial(sums[r] - 1, n));
             }

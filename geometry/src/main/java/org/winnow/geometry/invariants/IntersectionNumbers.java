@@ -45,6 +45,18 @@ public final class IntersectionNumbers {
     private final int[] suppLen = new int[MAX_COLS];
     private final int[] indicator = new int[MAX_ROWS];
     private final int[] current = new int[MAX_ROWS];
+    /** Units given up front by single-row columns, per row; the start state; columns left to order. */
+    private final int[] forced = new int[MAX_ROWS];
+    private long startKey;
+    private long startWeight;
+    private boolean startEmpty;
+    private int ordered;
+    /** The support of the column being processed: shift, mask, n, {@code n - rem} and degree per slot. */
+    private final int[] colShift = new int[MAX_ROWS];
+    private final long[] colMask = new long[MAX_ROWS];
+    private final int[] colN = new int[MAX_ROWS];
+    private final int[] colSlack = new int[MAX_ROWS];
+    private final int[] colDeg = new int[MAX_ROWS];
     /** The row owning each bit of a packed key, and the key of the exponent vector 0 (c = n). */
     private final int[] rowOfBit = new int[64];
     private long fullKey;
@@ -283,10 +295,53 @@ public final class IntersectionNumbers {
             cy &= sum == n[r] + 1;
         }
         calabiYau = cy;
-        for (int j = 0; j < k; j++) {
-            taken[j] = false;
-        }
+        forceSingleRowColumns();
         chooseOrder();
+    }
+
+    /**
+     * A column with a single row r gives its unit to r whatever the state: it is {@code q_rj J_r}.
+     * So all such columns are applied up front: the programme starts from {@code c = t} (t_r single-row
+     * columns on row r) with weight {@code prod q_rj} and runs over the other columns only. The gap
+     * of the start state is what processing them first would give (each leaves the gap unchanged),
+     * so the states and the final entries are those of the plain programme. If the product
+     * overflows, nothing is forced and the plain programme decides (it may prune every state first).
+     */
+    private void forceSingleRowColumns() {
+        long weight = 1;
+        boolean fits = true;
+        for (int j = 0; j < k && fits; j++) {
+            if (suppLen[j] == 1) {
+                int q1 = suppDeg[j * MAX_ROWS];
+                fits = weight <= Long.MAX_VALUE / q1;
+                weight *= q1;
+            }
+        }
+        for (int r = 0; r < m; r++) {
+            forced[r] = 0;
+        }
+        ordered = 0;
+        for (int j = 0; j < k; j++) {
+            boolean single = fits && suppLen[j] == 1;
+            taken[j] = single;
+            if (single) {
+                int r = suppRow[j * MAX_ROWS];
+                forced[r]++;
+                remaining[r]--;
+            } else {
+                ordered++;
+            }
+        }
+        startWeight = fits ? weight : 1;
+        startKey = 0;
+        startEmpty = false;
+        for (int r = 0; r < m; r++) {
+            if (forced[r] > n[r]) {
+                startEmpty = true;
+            } else {
+                startKey += (long) forced[r] << shift[r];
+            }
+        }
     }
 
     /**
@@ -298,7 +353,7 @@ public final class IntersectionNumbers {
         for (int r = 0; r < m; r++) {
             current[r] = remaining[r];
         }
-        for (int t = 0; t < k; t++) {
+        for (int t = 0; t < ordered; t++) {
             int best = -1;
             int bestMin = Integer.MAX_VALUE;
             int bestSum = Integer.MAX_VALUE;
@@ -331,21 +386,30 @@ public final class IntersectionNumbers {
 
     private void runProgramme() {
         front.clear();
-        if (dim < 0) {
+        if (dim < 0 || startEmpty) {
             return;
         }
         int gap0 = 0;
         for (int r = 0; r < m; r++) {
-            gap0 += Math.max(0, n[r] - remaining[r]);
+            gap0 += Math.max(0, n[r] - forced[r] - remaining[r]);
         }
         if (gap0 > dim) {
             return;
         }
-        front.add(0L, 1L, gap0);
-        for (int t = 0; t < k; t++) {
+        front.add(startKey, startWeight, gap0);
+        for (int t = 0; t < ordered; t++) {
             int j = order[t];
             int base = j * MAX_ROWS;
             int len = suppLen[j];
+            // The column's rows in flat per-slot arrays, so the state loop reads no per-row tables.
+            for (int i = 0; i < len; i++) {
+                int s = suppRow[base + i];
+                colShift[i] = shift[s];
+                colMask[i] = mask[s];
+                colN[i] = n[s];
+                colSlack[i] = n[s] - remaining[s];
+                colDeg[i] = suppDeg[base + i];
+            }
             StateTable next = back;
             next.clear();
             for (int e = 0; e < front.size; e++) {
@@ -356,23 +420,21 @@ public final class IntersectionNumbers {
                 // sees its rem drop by one, so its term max(0, x_s) grows iff x_s >= 0.
                 int grow = 0;
                 for (int i = 0; i < len; i++) {
-                    int s = suppRow[base + i];
-                    int cs = (int) ((key >>> shift[s]) & mask[s]);
+                    int cs = (int) ((key >>> colShift[i]) & colMask[i]);
                     current[i] = cs;
-                    int ind = (n[s] - cs - remaining[s]) >= 0 ? 1 : 0;
+                    int ind = colSlack[i] - cs >= 0 ? 1 : 0;
                     indicator[i] = ind;
                     grow += ind;
                 }
                 for (int i = 0; i < len; i++) {
-                    int s = suppRow[base + i];
-                    if (current[i] >= n[s]) {
+                    if (current[i] >= colN[i]) {
                         continue;
                     }
                     int g2 = g + grow - indicator[i];
                     if (g2 > dim) {
                         continue;
                     }
-                    next.add(key + (1L << shift[s]), Math.multiplyExact(w, suppDeg[base + i]), g2);
+                    next.add(key + (1L << colShift[i]), Math.multiplyExact(w, colDeg[i]), g2);
                 }
             }
             for (int i = 0; i < len; i++) {
@@ -467,8 +529,8 @@ public final class IntersectionNumbers {
         long[] weight = new long[64];
         int[] gap = new int[64];
         int size;
-        private int[] slotEntry = new int[128];
-        private int[] slotStamp = new int[128];
+        /** Per slot: generation in the high half, entry index in the low half (one load per probe). */
+        private long[] slots = new long[128];
         private int slotMask = 127;
         private int generation = 1;
 
@@ -476,15 +538,16 @@ public final class IntersectionNumbers {
             size = 0;
             generation++;
             if (generation == Integer.MAX_VALUE) {
-                java.util.Arrays.fill(slotStamp, 0);
+                java.util.Arrays.fill(slots, 0);
                 generation = 1;
             }
         }
 
         void add(long k, long w, int g) {
             int slot = hash(k) & slotMask;
-            while (slotStamp[slot] == generation) {
-                int e = slotEntry[slot];
+            long s;
+            while ((int) ((s = slots[slot]) >>> 32) == generation) {
+                int e = (int) s;
                 if (key[e] == k) {
                     weight[e] = Math.addExact(weight[e], w);
                     return;
@@ -500,8 +563,7 @@ public final class IntersectionNumbers {
             key[e] = k;
             weight[e] = w;
             gap[e] = g;
-            slotStamp[slot] = generation;
-            slotEntry[slot] = e;
+            slots[slot] = (long) generation << 32 | e;
         }
 
         private void grow() {
@@ -509,17 +571,15 @@ public final class IntersectionNumbers {
             key = java.util.Arrays.copyOf(key, cap);
             weight = java.util.Arrays.copyOf(weight, cap);
             gap = java.util.Arrays.copyOf(gap, cap);
-            slotEntry = new int[cap * 2];
-            slotStamp = new int[cap * 2];
+            slots = new long[cap * 2];
             slotMask = cap * 2 - 1;
             generation = 1;
             for (int e = 0; e < size; e++) {
                 int slot = hash(key[e]) & slotMask;
-                while (slotStamp[slot] == generation) {
+                while ((int) (slots[slot] >>> 32) == generation) {
                     slot = (slot + 1) & slotMask;
                 }
-                slotStamp[slot] = generation;
-                slotEntry[slot] = e;
+                slots[slot] = (long) generation << 32 | e;
             }
         }
 

@@ -80,6 +80,47 @@ class IntersectionOracleTest {
         org.junit.jupiter.api.Assertions.assertThrows(ArithmeticException.class, () -> new InvariantCalculator().compute(c));
     }
 
+    /**
+     * Single-row columns are applied before the programme runs (start state {@code c = t}, weight the
+     * product of their degrees): against the dense reference on random matrices with many of them,
+     * including rows that get more such columns than their dimension (empty result). Common practice,
+     * no source.
+     */
+    @Test
+    void singleRowColumnsGiveTheDenseAnswer() {
+        RandomConfigurations gen = new RandomConfigurations(new SplittableRandom(4L));
+        IntersectionNumbers reused = new IntersectionNumbers();
+        int withSingle = 0;
+        for (int i = 0; i < 1500; i++) {
+            Configuration c = i % 2 == 0 ? gen.calabiYau(i % 5, 4, 3) : gen.arbitrary(i % 5, 3, 3, 3);
+            if (!denseAffordable(c)) {
+                continue;
+            }
+            reused.compute(c);
+            assertEquals(DenseIntersectionNumbers.all(c), reused.asMap(), c::toText);
+            withSingle += hasSingleRowColumn(c) ? 1 : 0;
+        }
+        assertTrue(withSingle > 400, "too few matrices with a single-row column: " + withSingle);
+        // Two single-row columns on a P^1 force J_1^2 = 0: no points.
+        assertTrue(IntersectionNumbers.all(Configuration.parse("1:2,2,1/2:0,0,3")).isEmpty());
+        assertTrue(DenseIntersectionNumbers.all(Configuration.parse("1:2,2,1/2:0,0,3")).isEmpty());
+        // Only single-row columns: 6 x 5 x 7 points.
+        assertEquals(Map.of(List.of(0, 0), 210L), IntersectionNumbers.all(Configuration.parse("1:6,0,0/2:0,5,7")));
+    }
+
+    private static boolean hasSingleRowColumn(Configuration c) {
+        for (int j = 0; j < c.cols(); j++) {
+            int nonzero = 0;
+            for (int r = 0; r < c.rows(); r++) {
+                nonzero += c.q(r, j) > 0 ? 1 : 0;
+            }
+            if (nonzero == 1) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     private static long lookup(Map<List<Integer>, Long> map, int m, int... rows) {
         Integer[] a = new Integer[m];
         java.util.Arrays.fill(a, 0);
