@@ -60,10 +60,8 @@ public final class IntersectionNumbers {
     /** The row owning each bit of a packed key, and the key of the exponent vector 0 (c = n). */
     private final int[] rowOfBit = new int[64];
     private long fullKey;
-    /** Degree matrix, row-major with stride MAX_COLS, and per row the columns touching it. */
+    /** Degree matrix, row-major with stride MAX_COLS. */
     final int[] q = new int[MAX_ROWS * MAX_COLS];
-    final int[] rowCols = new int[MAX_ROWS * MAX_COLS];
-    final int[] rowColLen = new int[MAX_ROWS];
     /** Per row the set of columns touching it, as a bit mask (K <= 24 fits an int). */
     final int[] rowMask = new int[MAX_ROWS];
     /** For d <= 4: the rows of each final exponent vector with multiplicity, 4 slots per entry. */
@@ -263,7 +261,6 @@ public final class IntersectionNumbers {
             full |= (long) n[r] << bits;
             bits += width;
             remaining[r] = 0;
-            rowColLen[r] = 0;
             rowMask[r] = 0;
         }
         fullKey = full;
@@ -285,13 +282,12 @@ public final class IntersectionNumbers {
                     suppRow[base + len] = r;
                     suppDeg[base + len] = v;
                     suppLen[j] = len + 1;
-                    rowCols[qBase + rowColLen[r]++] = j;
                     rowMask[r] |= 1 << j;
                 } else if (r == 0) {
                     suppLen[j] = 0;
                 }
             }
-            remaining[r] = rowColLen[r];
+            remaining[r] = Integer.bitCount(rowMask[r]);
             cy &= sum == n[r] + 1;
         }
         calabiYau = cy;
