@@ -13,7 +13,10 @@ import org.winnow.geometry.hodge.HodgeResult;
  * ({@code config h11 h21 [h31 h22] status source}) for {@code winnow label}. In the TSV an
  * undetermined value is written {@code lo..hi}. For a K3 surface h21 is written 0, which it is
  * ({@code h^{2,1} = h^{1,0} = 0} once {@code h^1(O_X) = 0} is verified), so exact rows stay integral
- * for the reference reader.
+ * for the reference reader. A product (block-diagonal input, method {@code product}) is marked in every form:
+ * {@code "product": true} with its factors and whole diamond in JSON, {@code product A x B} and its nonzero
+ * {@code h^{p,0}} in text, and the source {@code product} in the TSV, since its holonomy is smaller and the
+ * identities of full holonomy do not hold for it.
  */
 final class HodgeFormat {
     private static final ObjectMapper JSON = new ObjectMapper();
@@ -45,6 +48,20 @@ final class HodgeFormat {
             o.putNull("method");
         } else {
             o.put("method", r.method().label());
+        }
+        o.put("product", r.isProduct());
+        if (r.isProduct()) {
+            var factors = o.putArray("factors");
+            r.factors().forEach(f -> factors.add(f.toText()));
+            if (r.diamond() != null) {
+                var rows = o.putArray("diamond");
+                for (long[] row : r.diamond().numbers()) {
+                    var a = rows.addArray();
+                    for (long h : row) {
+                        a.add(h);
+                    }
+                }
+            }
         }
         o.put("seconds", Math.round(r.seconds() * 1e6) / 1e6);
         if (!r.reason().isEmpty()) {
@@ -79,9 +96,19 @@ final class HodgeFormat {
             append(sb, "h31", r.h31());
             append(sb, "h22", r.h22());
         }
+        if (r.isProduct() && r.diamond() != null) {
+            for (int p = 1; p <= r.dim(); p++) {
+                if (r.diamond().h(p, 0) != 0) {
+                    sb.append("  h").append(p).append("0 ").append(r.diamond().h(p, 0));
+                }
+            }
+        }
         sb.append("  ").append(r.status().label());
         if (r.method() != null) {
             sb.append(" (").append(r.method().label()).append(')');
+        }
+        if (r.isProduct()) {
+            sb.append("  product ").append(String.join(" x ", r.factors().stream().map(Configuration::toText).toList()));
         }
         sb.append(String.format(Locale.ROOT, "  %.3fs", r.seconds()));
         if (!r.reason().isEmpty()) {
@@ -96,15 +123,16 @@ final class HodgeFormat {
         }
     }
 
-    /** One reference line (the result must not be refused). */
+    /** One reference line (the result must not be refused); the source is {@code product} for a product. */
     static String tsv(Configuration canonical, HodgeResult r, boolean fourfoldColumns) {
         StringBuilder sb = new StringBuilder(canonical.toText());
-        Interval h21 = r.h21() == null && r.dim() == 2 ? Interval.exact(0) : r.h21();
+        Interval h21 = r.h21() != null || r.dim() != 2 ? r.h21()
+                : Interval.exact(r.diamond() != null ? r.diamond().h(2, 1) : 0);
         sb.append('\t').append(cell(r.h11())).append('\t').append(cell(h21));
         if (fourfoldColumns) {
             sb.append('\t').append(cell(r.h31())).append('\t').append(cell(r.h22()));
         }
-        sb.append('\t').append(r.status().label()).append('\t').append("computed");
+        sb.append('\t').append(r.status().label()).append('\t').append(r.isProduct() ? "product" : "computed");
         return sb.toString();
     }
 

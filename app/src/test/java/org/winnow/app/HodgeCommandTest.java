@@ -59,9 +59,29 @@ class HodgeCommandTest {
         assertEquals(14, nf.get("h11").asLong());
         assertEquals(23, nf.get("h21").asLong());
         assertEquals("d1", nf.get("method").asText());
+        assertFalse(quintic.get("product").asBoolean());
+        // K3 x K3: chi = 24 * 24 (common practice, no source), diamond derived in docs/hodge-coverage.md.
         JsonNode product = JSON.readTree(r.out().get(2));
-        assertEquals("refused", product.get("status").asText());
-        assertTrue(product.get("reason").asText().contains("block-diagonal"));
+        assertEquals("exact", product.get("status").asText());
+        assertEquals("product", product.get("method").asText());
+        assertTrue(product.get("product").asBoolean());
+        assertEquals(576, product.get("chi").asLong());
+        assertEquals(2, product.get("factors").size());
+        assertEquals("3:4", product.get("factors").get(0).asText());
+        assertEquals(40, product.get("h11").asLong());
+        assertEquals(40, product.get("h31").asLong());
+        assertEquals(404, product.get("h22").asLong());
+        assertEquals(2, product.get("diamond").get(2).get(0).asLong(), "h^{2,0} of K3 x K3");
+    }
+
+    @Test
+    void textMarksProducts() {
+        // T2 x K3: chi = 0 * 24 (common practice, no source); h11 = h21 = 21 derived in docs/hodge-coverage.md.
+        Run r = run("hodge", "2:3,0/3:0,4");
+        assertEquals(0, r.exit(), String.join("\n", r.err()));
+        String line = r.out().get(0);
+        assertTrue(line.contains("chi 0  h11 21  h21 21  h10 1  h20 1  h30 1  exact (product)"), line);
+        assertTrue(line.endsWith("product 2:3 x 3:4") || line.contains("  product 2:3 x 3:4  "), line);
     }
 
     @Test
@@ -93,16 +113,18 @@ class HodgeCommandTest {
         assertEquals(WinnowCli.EXIT_BAD_INPUT, first.exit(), "the bad line makes the exit code 2");
         List<String> lines = Files.readAllLines(out);
         assertEquals("config\th11\th21\tstatus\tsource", lines.get(0));
-        assertEquals(4, lines.size(), String.join("\n", lines));
+        assertEquals(5, lines.size(), String.join("\n", lines));
         assertTrue(lines.contains("4:5\t1\t101\texact\tcomputed"));
+        // T2 x K3, a product: h11 = h21 = 21 (derived in docs/hodge-coverage.md), marked by its source.
+        assertEquals(1, lines.stream().filter(l -> l.endsWith("\t21\t21\texact\tproduct")).count(), String.join("\n", lines));
         // (19, 19): arXiv:0809.4681 (2008); the permuted copy is the same canonical matrix
         assertEquals(1, lines.stream().filter(l -> l.endsWith("\t19\t19\texact\tcomputed")).count());
         // simulate a kill in the middle of a line: the torn line is cut off and redone
-        String kept = String.join("\n", lines.subList(0, 3)) + "\n";
-        Files.writeString(out, kept + lines.get(3).substring(0, 3), StandardCharsets.UTF_8);
+        String kept = String.join("\n", lines.subList(0, 4)) + "\n";
+        Files.writeString(out, kept + lines.get(4).substring(0, 3), StandardCharsets.UTF_8);
         Run second = run("label", "--in", in.toString(), "--out", out.toString());
         List<String> again = Files.readAllLines(out);
-        assertEquals(4, again.size(), String.join("\n", again));
+        assertEquals(5, again.size(), String.join("\n", again));
         assertTrue(second.err().get(second.err().size() - 1).contains("1 labelled"), String.join("\n", second.err()));
     }
 

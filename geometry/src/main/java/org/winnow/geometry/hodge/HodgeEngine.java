@@ -3,6 +3,7 @@ package org.winnow.geometry.hodge;
 import java.lang.System.Logger.Level;
 import java.util.ArrayList;
 import java.util.Arrays;
+import java.util.Comparator;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
@@ -16,6 +17,7 @@ import org.winnow.geometry.cohomology.GradedJacobian;
 import org.winnow.geometry.cohomology.InconsistentPageException;
 import org.winnow.geometry.cohomology.Interval;
 import org.winnow.geometry.cohomology.KoszulD1;
+import org.winnow.geometry.invariants.Block;
 import org.winnow.geometry.invariants.Blocks;
 import org.winnow.geometry.invariants.CheapInvariants;
 import org.winnow.geometry.invariants.InvariantCalculator;
@@ -45,7 +47,9 @@ import org.winnow.geometry.invariants.Reduction;
  * coefficient seed and the larger kept; a disagreement is logged. The checks
  * {@code 2(h11 - h21) = chi} (d = 3), {@code h11 = chi - 4} (d = 2) and
  * {@code chi = 48 + 6(h11 - h21 + h31)} (d = 4) are enforced by intersecting with them; a
- * contradiction refuses the case instead of returning a value.
+ * contradiction refuses the case instead of returning a value. These identities hold for full holonomy only;
+ * a block-diagonal matrix (a product) is never put through them: each block is, and the product's diamond
+ * follows by the Kunneth formula, checked against chi alone.
  *
  * <p>Not thread-safe (it owns an invariant workspace); use one engine per thread.
  */
@@ -85,8 +89,20 @@ public final class HodgeEngine {
         return new HodgeEngine(new TransferredBackend());
     }
 
-    /** The Hodge numbers of {@code input}; never throws for bad input (it is refused with a reason). */
+    /**
+     * The Hodge numbers of {@code input}; never throws for bad input (it is refused with a reason). A
+     * block-diagonal input is a product: each block is computed by this engine and the diamond follows by the
+     * Kunneth formula (method {@link Method#PRODUCT}, {@link HodgeResult#factors()} lists the blocks).
+     */
     public HodgeResult compute(Configuration input) {
+        return compute(input, false);
+    }
+
+    /**
+     * @param factor true for a block of a product, which may also be a curve (an elliptic curve once
+     *               {@code h^*(O_X) = (1, 1)} is verified)
+     */
+    private HodgeResult compute(Configuration input, boolean factor) {
         long start = nanoClock.getAsLong();
         Optional<Long> chi = Optional.empty();
         Method method = null;
@@ -96,7 +112,7 @@ public final class HodgeEngine {
                 return HodgeResult.refused(input, chi, problem.get(), null, seconds(start));
             }
             int d = input.dimension();
-            if (d < 2 || d > 4) {
+            if (d < (factor ? 1 : 2) || d > 4) {
                 return HodgeResult.refused(input, chi, "dimension " + d
                         + ": Hodge numbers are computed for K3 surfaces, three-folds and four-folds", null, seconds(start));
             }
@@ -113,10 +129,10 @@ public final class HodgeEngine {
                 return HodgeResult.refused(input, chi, "empty: the degree int_X (J_1 + ... + J_m)^d is 0", null,
                         seconds(start));
             }
-            int blocks = Blocks.of(x).count();
-            if (blocks > 1) {
-                return HodgeResult.refused(input, chi, "block-diagonal matrix: a product of " + blocks
-                        + " blocks, not a Calabi-Yau of full holonomy", null, seconds(start));
+            List<Block> blocks = Blocks.of(x).list();
+            if (blocks.size() > 1) {
+                return factor ? HodgeResult.refused(input, chi, "inconsistent: a block has blocks", null, seconds(start))
+                        : product(input, x, blocks, chi.get(), start);
             }
             Computation c = new Computation(input, x, chi.get());
             HodgeResult r = c.run(start);
@@ -126,6 +142,86 @@ public final class HodgeEngine {
         } catch (ArithmeticException | IllegalArgumentException e) {
             return HodgeResult.refused(input, chi, "out of range: " + e.getMessage(), method, seconds(start));
         }
+    }
+
+    /**
+     * A block-diagonal matrix: every block must be decided exactly by the engine, then the Kunneth formula
+     * gives the whole diamond, whose Euler characteristic must equal {@code chi} from the intersection
+     * numbers (an independent check: the blocks' Hodge numbers come from line bundle cohomology).
+     */
+    private HodgeResult product(Configuration input, Configuration x, List<Block> blocks, long chi, long start) {
+        // Factors in canonical form, smallest dimension first (T2 x K3), so a product reads the same however it
+        // was written; the order changes nothing else, the product being commutative.
+        List<Configuration> canonical = new ArrayList<>(blocks.size());
+        List<Integer> order = new ArrayList<>(blocks.size());
+        for (int i = 0; i < blocks.size(); i++) {
+            canonical.add(block(x, blocks.get(i)).canonical());
+            order.add(i);
+        }
+        order.sort(Comparator.<Integer>comparingInt(i -> blocks.get(i).dimension())
+                .thenComparing(i -> canonical.get(i).toText()));
+        List<Configuration> factors = new ArrayList<>(blocks.size());
+        List<Block> sorted = new ArrayList<>(blocks.size());
+        for (int i : order) {
+            factors.add(canonical.get(i));
+            sorted.add(blocks.get(i));
+        }
+        return kunneth(input, factors, sorted, chi, start);
+    }
+
+    private HodgeResult kunneth(Configuration input, List<Configuration> factors, List<Block> blocks, long chi,
+            long start) {
+        StringBuilder names = new StringBuilder();
+        for (Configuration f : factors) {
+            names.append(names.length() == 0 ? "" : " x ").append(f.toText());
+        }
+        List<HodgeDiamond> diamonds = new ArrayList<>(factors.size());
+        for (int i = 0; i < factors.size(); i++) {
+            Configuration f = factors.get(i);
+            int dim = blocks.get(i).dimension();
+            if (dim < 1) {
+                return refusedProduct(input, chi, "product " + names + ": block " + (i + 1) + " (" + f.toText()
+                        + ") has dimension " + dim + (dim == 0 ? ", finitely many points" : ", empty"), factors, start);
+            }
+            HodgeResult r = compute(f, true);
+            if (r.status() != Status.EXACT) {
+                return refusedProduct(input, chi, "product " + names + ": block " + (i + 1) + " (" + f.toText() + ") is "
+                        + r.status().label() + ": " + r.reason(), factors, start);
+            }
+            diamonds.add(r.diamond());
+        }
+        HodgeDiamond diamond = Kunneth.product(diamonds);
+        if (diamond.euler() != chi) {
+            return refusedProduct(input, chi, "check failed: product " + names + ": the Kunneth diamond gives chi = "
+                    + diamond.euler() + " but the intersection numbers give " + chi, factors, start);
+        }
+        int d = input.dimension();
+        Interval h11 = Interval.exact(diamond.h(1, 1));
+        Interval h21 = d >= 3 ? Interval.exact(diamond.h(2, 1)) : null;
+        Interval h31 = d == 4 ? Interval.exact(diamond.h(3, 1)) : null;
+        Interval h22 = d == 4 ? Interval.exact(diamond.h(2, 2)) : null;
+        return new HodgeResult(input, d, Optional.of(chi), h11, h21, h31, h22, Status.EXACT, Method.PRODUCT, "",
+                seconds(start), diamond, factors);
+    }
+
+    private HodgeResult refusedProduct(Configuration input, long chi, String reason, List<Configuration> factors,
+            long start) {
+        return new HodgeResult(input, input.dimension(), Optional.of(chi), null, null, null, null, Status.REFUSED, null,
+                reason, seconds(start), null, factors);
+    }
+
+    /** The rows and columns of one block as a configuration of its own. */
+    private static Configuration block(Configuration x, Block b) {
+        int[] n = new int[b.rows().size()];
+        int[][] q = new int[n.length][b.columns().size()];
+        for (int i = 0; i < n.length; i++) {
+            int r = b.rows().get(i);
+            n[i] = x.n(r);
+            for (int j = 0; j < b.columns().size(); j++) {
+                q[i][j] = x.q(r, b.columns().get(j));
+            }
+        }
+        return Configuration.of(n, q);
     }
 
     private double seconds(long start) {
@@ -193,6 +289,15 @@ public final class HodgeEngine {
                 if (o.h(t).value() != expected) {
                     return refuse("h^" + t + "(O_X) = " + o.h(t).value() + ", expected " + expected, start);
                 }
+            }
+            if (d == 1) {
+                // A connected smooth curve with trivial canonical bundle is an elliptic curve: h^{1,1} = h^{0,0}.
+                if (chi != 0) {
+                    return refuse("check failed: a curve with h^*(O_X) = (1, 1) has chi = 0, the invariants give " + chi,
+                            start);
+                }
+                return new HodgeResult(input, 1, Optional.of(chi), Interval.exact(1), null, null, null, Status.EXACT,
+                        method, "", seconds(start), HodgeDiamond.ellipticCurve(), List.of());
             }
             List<BundleState> all = new ArrayList<>();
             for (int r = 0; r < m; r++) {
@@ -418,7 +523,12 @@ public final class HodgeEngine {
                     && (h22 == null || h22.isExact());
             Status status = exact ? Status.EXACT : Status.BOUNDED;
             String reason = exact ? "" : String.join("; ", open);
-            return new HodgeResult(input, d, Optional.of(chi), h11, h21, h31, h22, status, method, reason, seconds(start));
+            HodgeDiamond diamond = !exact ? null
+                    : d == 2 ? HodgeDiamond.calabiYau2(h11.value())
+                    : d == 3 ? HodgeDiamond.calabiYau3(h11.value(), h21.value())
+                    : HodgeDiamond.calabiYau4(h11.value(), h21.value(), h31.value(), h22.value());
+            return new HodgeResult(input, d, Optional.of(chi), h11, h21, h31, h22, status, method, reason, seconds(start),
+                    diamond, List.of());
         }
 
         private HodgeResult refuse(String reason, long start) {

@@ -7,7 +7,12 @@ public enum Method {
     /** Explicit d1 over F_p, the E2 re-analysis and the graded Jacobian map. */
     D1,
     /** The transferred Koszul complex (all higher differentials, the exact Jacobian map). */
-    TRANSFERRED;
+    TRANSFERRED,
+    /**
+     * A block-diagonal matrix: each block by the engine (any of the methods above), the whole diamond from the
+     * blocks' by the Kunneth formula.
+     */
+    PRODUCT;
 
     /** The lower-case label used in files and JSON. */
     public String label() {

@@ -17,7 +17,7 @@ import org.winnow.geometry.ConfigurationText;
 /**
  * The labelled reference file: tab-separated, a header line naming the columns
  * {@code config h11 h21 [h31 h22] status source}, then one configuration per line. {@code status} is
- * {@code exact} or {@code bounded}, {@code source} is {@code computed} or {@code imported}. Blank
+ * {@code exact} or {@code bounded}, {@code source} is {@code computed}, {@code imported} or {@code product}. Blank
  * lines and {@code #} comments are skipped. Hodge values of a bounded row may be non-integers (for
  * example ranges) and are then kept as text only; training uses exact rows alone.
  */
@@ -25,8 +25,12 @@ public final class ReferenceTsv {
     /** Label status. */
     public enum Status { EXACT, BOUNDED }
 
-    /** Where a label came from. */
-    public enum Source { COMPUTED, IMPORTED }
+    /**
+     * Where a label came from: computed by the Hodge engine, imported, or computed as a product (a
+     * block-diagonal matrix, whose diamond is the Kunneth product of its blocks'; its holonomy is smaller, so
+     * the identities of full holonomy, such as the four-fold chi identity, do not hold for it).
+     */
+    public enum Source { COMPUTED, IMPORTED, PRODUCT }
 
     /**
      * One line of the file.
@@ -89,7 +93,7 @@ public final class ReferenceTsv {
             }
             int values = header.size() - 3;
             Status status = parseEnum(Status.class, f[values + 1], "status", "exact | bounded", lineNo);
-            Source source = parseEnum(Source.class, f[values + 2], "source", "computed | imported", lineNo);
+            Source source = parseEnum(Source.class, f[values + 2], "source", "computed | imported | product", lineNo);
             int[] hodge = new int[values];
             boolean integral = true;
             for (int i = 0; i < values; i++) {
