@@ -41,6 +41,43 @@ public final class Enumerator {
         return seq[0];
     }
 
+    /**
+     * Runs the enumeration on {@code threads} worker threads and pushes every kept matrix to {@code out} on
+     * the calling thread, in the same order and with the same sequence numbers as {@link #run(Bounds,
+     * RuleSet, ShardSpec, Consumer)}; one thread is that method. The workers build the configurations and
+     * their text, so the calling thread's consumer overlaps with the search.
+     *
+     * @return the number of matrices pushed
+     * @throws CancellationException if the calling thread is interrupted while it waits (its interrupt
+     *     flag is set again); the workers are stopped before this returns or throws
+     */
+    public long run(Bounds bounds, RuleSet rules, ShardSpec shard, int threads,
+            Consumer<? super EnumeratedMatrix> out) {
+        Checks.requireArgument(threads >= 1, "threads must be at least 1, got %s", threads);
+        if (threads == 1) {
+            return run(bounds, rules, shard, out);
+        }
+        Checks.requireArgument(bounds != null && rules != null && shard != null && out != null,
+                "bounds, rules, shard and consumer are required");
+        return new ParallelWalk(bounds, rules, shard, threads).run(out);
+    }
+
+    /**
+     * Counts on {@code threads} worker threads what {@link #run} would emit; {@code stop} is asked from
+     * the workers.
+     *
+     * @throws CancellationException when stopped before the end
+     */
+    public EnumerationCounts count(Bounds bounds, RuleSet rules, ShardSpec shard, int threads, BooleanSupplier stop) {
+        Checks.requireArgument(threads >= 1, "threads must be at least 1, got %s", threads);
+        if (threads == 1) {
+            return count(bounds, rules, shard, stop);
+        }
+        Checks.requireArgument(bounds != null && rules != null && shard != null && stop != null,
+                "bounds, rules, shard and stop are required");
+        return new EnumerationCounts(new ParallelWalk(bounds, rules, shard, threads).count(stop));
+    }
+
     /** Counts what {@link #run} would emit, per number of rows. */
     public EnumerationCounts count(Bounds bounds, RuleSet rules, ShardSpec shard) {
         return count(bounds, rules, shard, () -> false);

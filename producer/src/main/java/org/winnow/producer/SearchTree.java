@@ -1,5 +1,6 @@
 package org.winnow.producer;
 
+import java.util.function.LongPredicate;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.canonical.CanonicalSearch;
 
@@ -22,7 +23,7 @@ final class SearchTree {
 
     private final Bounds bounds;
     private final RuleSet rules;
-    private final ShardSpec shard;
+    private final LongPredicate owns;
     private final Leaf leaf;
     private final CanonicalSearch canon = new CanonicalSearch();
     private final LeafChecks checks = new LeafChecks();
@@ -46,9 +47,17 @@ final class SearchTree {
     private long nodes;
 
     SearchTree(Bounds bounds, RuleSet rules, ShardSpec shard, Leaf leaf) {
+        this(bounds, rules, (LongPredicate) shard::owns, leaf);
+    }
+
+    /**
+     * @param owns asked once per unit, in generation order, whether to descend into it (a shard, or a
+     *             worker of a parallel walk that claims units as it meets them)
+     */
+    SearchTree(Bounds bounds, RuleSet rules, LongPredicate owns, Leaf leaf) {
         this.bounds = bounds;
         this.rules = rules;
-        this.shard = shard;
+        this.owns = owns;
         this.leaf = leaf;
     }
 
@@ -98,7 +107,7 @@ final class SearchTree {
     private void descend(int t) {
         if (t == unitDepth) {
             long u = unit++;
-            if (!shard.owns(u)) {
+            if (!owns.test(u)) {
                 return;
             }
         }
