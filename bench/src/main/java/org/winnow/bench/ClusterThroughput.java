@@ -17,7 +17,7 @@ import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.stream.Stream;
 import org.apache.kafka.clients.admin.Admin;
 import org.apache.kafka.clients.admin.LogDirDescription;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 import org.winnow.app.cluster.ClusterProducer;
 import org.winnow.app.cluster.ClusterScorer;
 import org.winnow.app.cluster.ClusterSink;
@@ -39,10 +39,10 @@ import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.stage.ModelScoring;
 import org.winnow.sink.Manifest;
 import org.winnow.sink.SinkOptions;
-import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
+import picocli.CommandLine;
 
 /**
  * Cluster mode against {@code winnow scan} on one machine: the same input (by default the synthetic

@@ -14,7 +14,7 @@ import java.util.List;
 import java.util.concurrent.TimeUnit;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.producer.RuleSet;
 import org.winnow.scorer.model.Architecture;

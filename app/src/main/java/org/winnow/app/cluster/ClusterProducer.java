@@ -19,7 +19,7 @@ import org.apache.kafka.common.KafkaException;
 import org.apache.kafka.common.TopicPartition;
 import org.apache.kafka.common.serialization.StringDeserializer;
 import org.apache.kafka.common.serialization.StringSerializer;
-import org.winnow.app.scan.RunIds;
+import org.winnow.app.cli.RunIds;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.Candidate;
 import org.winnow.pipeline.CandidateSource;

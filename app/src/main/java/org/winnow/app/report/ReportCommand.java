@@ -6,6 +6,7 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
+import org.winnow.app.cli.Exit;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.sink.ScanFiles;
 import picocli.CommandLine.Command;
@@ -22,9 +23,6 @@ import picocli.CommandLine.Spec;
             "the survivors and the clusters of novel survivors. On an evaluation's directory: summary, per-class",
             "recall and precision, confusion matrix, reliability diagram and embedding picture."})
 public final class ReportCommand implements Callable<Integer> {
-    /** Exit code for bad input or options, as every winnow command. */
-    private static final int EXIT_BAD_INPUT = 2;
-
     @Spec
     CommandSpec spec;
 
@@ -52,19 +50,19 @@ public final class ReportCommand implements Callable<Integer> {
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
         if (top < 1) {
-            return fail(err, "--top " + top + ": must be at least 1");
+            return Exit.badInput(err, "report", "--top " + top + ": must be at least 1");
         }
         if (maxMapPoints < 1) {
-            return fail(err, "--max-map-points " + maxMapPoints + ": must be at least 1");
+            return Exit.badInput(err, "report", "--max-map-points " + maxMapPoints + ": must be at least 1");
         }
         Path evaluation = dir.resolve(EvaluationFile.FILE);
         if (Files.isRegularFile(evaluation)) {
             if (Files.exists(dir.resolve(ScanFiles.MANIFEST))) {
-                return fail(err, dir + ": holds both " + ScanFiles.MANIFEST + " and " + EvaluationFile.FILE
+                return Exit.badInput(err, "report", dir + ": holds both " + ScanFiles.MANIFEST + " and " + EvaluationFile.FILE
                         + "; give a scan's or an evaluation's own directory");
             }
             if (model != null) {
-                return fail(err, "--model applies to a scan directory; " + evaluation + " names its own model");
+                return Exit.badInput(err, "report", "--model applies to a scan directory; " + evaluation + " names its own model");
             }
             return evaluationReport(evaluation, err);
         }
@@ -72,7 +70,7 @@ public final class ReportCommand implements Callable<Integer> {
         try {
             scan = ScanResult.read(dir);
         } catch (ScanResult.BadScanDir e) {
-            return fail(err, e.getMessage());
+            return Exit.badInput(err, "report", e.getMessage());
         }
         ModelView view = null;
         if (model != null) {
@@ -80,12 +78,12 @@ public final class ReportCommand implements Callable<Integer> {
             try {
                 frozen = FrozenModel.load(model);
             } catch (IOException e) {
-                return fail(err, e.getMessage());
+                return Exit.badInput(err, "report", e.getMessage());
             }
             try {
                 view = ModelView.build(scan, frozen, maxMapPoints);
             } catch (IllegalArgumentException e) {
-                return fail(err, model + ": " + e.getMessage());
+                return Exit.badInput(err, "report", model + ": " + e.getMessage());
             }
             if (!view.sameModel()) {
                 err.println("winnow report: warning: " + model + " has checksum " + frozen.checksum()
@@ -96,7 +94,7 @@ public final class ReportCommand implements Callable<Integer> {
         try {
             write(ReportHtml.render(scan, view, "winnow scan " + scan.manifest().runId(), top));
         } catch (IOException e) {
-            return fail(err, out + ": cannot write the report (" + e.getMessage() + ")");
+            return Exit.badInput(err, "report", out + ": cannot write the report (" + e.getMessage() + ")");
         }
         PrintWriter o = spec.commandLine().getOut();
         o.println("report: " + out + " (" + scan.survivors().size() + " survivors)");
@@ -109,13 +107,13 @@ public final class ReportCommand implements Callable<Integer> {
         try {
             e = EvaluationFile.read(file);
         } catch (IOException ex) {
-            return fail(err, ex.getMessage());
+            return Exit.badInput(err, "report", ex.getMessage());
         }
         try {
             write(EvaluationHtml.render(e, dir, "winnow evaluate " + Path.of(e.model()).getFileName() + " on "
                     + Path.of(e.testFile()).getFileName()));
         } catch (IOException ex) {
-            return fail(err, out + ": cannot write the report (" + ex.getMessage() + ")");
+            return Exit.badInput(err, "report", out + ": cannot write the report (" + ex.getMessage() + ")");
         }
         PrintWriter o = spec.commandLine().getOut();
         o.println("report: " + out + " (evaluation of " + e.testRows() + " test rows)");
@@ -129,11 +127,5 @@ public final class ReportCommand implements Callable<Integer> {
             Files.createDirectories(parent);
         }
         Files.writeString(out, html, StandardCharsets.UTF_8);
-    }
-
-    private static int fail(PrintWriter err, String message) {
-        err.println("winnow report: " + message);
-        err.flush();
-        return EXIT_BAD_INPUT;
     }
 }

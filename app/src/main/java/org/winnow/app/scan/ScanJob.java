@@ -9,6 +9,7 @@ import java.util.List;
 import java.util.Objects;
 import java.util.concurrent.atomic.AtomicReference;
 import java.util.function.Consumer;
+import org.winnow.app.cli.RunIds;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.CandidateSource;
 import org.winnow.pipeline.Sequencer;

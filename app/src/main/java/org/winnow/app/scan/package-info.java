@@ -1,6 +1,6 @@
 /**
- * {@code winnow scan} in one JVM: the input-file source, the run identity, the wiring of source,
- * scorer workers and sink, the live status line, and the Prometheus endpoint on a loopback HTTP server
- * that the watch dashboard shares.
+ * {@code winnow scan}, {@code winnow demo} and {@code winnow enumerate} in one JVM: the space options,
+ * the wiring of source, scorer workers and sink ({@link org.winnow.app.scan.ScanJob}) and the live
+ * status line.
  */
 package org.winnow.app.scan;

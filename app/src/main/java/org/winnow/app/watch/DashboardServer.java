@@ -8,8 +8,8 @@ import java.nio.charset.StandardCharsets;
 import java.util.Map;
 import java.util.Objects;
 import java.util.function.Supplier;
-import org.winnow.app.scan.LoopbackHttpServer;
-import org.winnow.app.scan.LoopbackHttpServer.Response;
+import org.winnow.app.cli.LoopbackHttpServer.Response;
+import org.winnow.app.cli.LoopbackHttpServer;
 
 /**
  * Serves the dashboard on the loopback interface only: {@code /} is one self-contained page (inline SVG

@@ -12,7 +12,7 @@ import java.nio.file.Path;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 import org.winnow.app.scan.ScanFixtures;
 import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
 import org.winnow.kafkatestkit.KafkaBroker;

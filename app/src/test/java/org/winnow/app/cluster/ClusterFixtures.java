@@ -15,7 +15,7 @@ import java.util.function.LongSupplier;
 import org.apache.kafka.clients.admin.OffsetSpec;
 import org.apache.kafka.clients.consumer.OffsetAndMetadata;
 import org.apache.kafka.common.TopicPartition;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 import org.winnow.pipeline.kafka.RunAdmin;
 import org.winnow.pipeline.kafka.RunTopics;
 import org.winnow.sink.Manifest;

@@ -24,7 +24,7 @@ import java.util.stream.LongStream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.junit.jupiter.api.io.TempDir;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 import org.winnow.app.scan.InputFileSource;
 import org.winnow.app.scan.ScanFixtures;
 import org.winnow.app.watch.WatchState;

@@ -10,7 +10,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 
 /**
  * A run like the demo's, small enough for a test: every {@code stride}-th row of the shipped demo

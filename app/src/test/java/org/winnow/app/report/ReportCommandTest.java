@@ -18,7 +18,7 @@ import javax.imageio.ImageIO;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 import org.winnow.app.scan.ScanFixtures;
 import org.winnow.pipeline.Reason;
 import org.winnow.scorer.model.FrozenModel;

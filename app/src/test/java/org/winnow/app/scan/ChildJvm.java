@@ -12,7 +12,7 @@ import java.util.List;
 final class ChildJvm {
     private ChildJvm() {}
 
-    /** A process builder for {@code java [jvmOptions] org.winnow.app.WinnowCli args}, output to {@code log}. */
+    /** A process builder for {@code java [jvmOptions] org.winnow.app.cli.WinnowCli args}, output to {@code log}. */
     static ProcessBuilder winnow(Path log, List<String> jvmOptions, List<String> args) {
         List<String> cmd = new ArrayList<>();
         cmd.add(Path.of(System.getProperty("java.home"), "bin", "java").toString());
@@ -20,7 +20,7 @@ final class ChildJvm {
         cmd.add("-cp");
         // Surefire names the real test class path here; java.class.path may be its one-jar launcher.
         cmd.add(System.getProperty("surefire.test.class.path", System.getProperty("java.class.path")));
-        cmd.add("org.winnow.app.WinnowCli");
+        cmd.add("org.winnow.app.cli.WinnowCli");
         cmd.addAll(args);
         return new ProcessBuilder(cmd).redirectErrorStream(true).redirectOutput(log.toFile());
     }

@@ -1,5 +1,6 @@
 package org.winnow.app.scan;
 
+import org.winnow.app.cli.MetricsServer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 

@@ -1,0 +1,69 @@
+package org.winnow.app.cli;
+
+import org.winnow.app.cluster.ProduceCommand;
+import org.winnow.app.cluster.ScoreCommand;
+import org.winnow.app.cluster.SinkCommand;
+import org.winnow.app.hodge.HodgeCommand;
+import org.winnow.app.hodge.InvariantsCommand;
+import org.winnow.app.hodge.LabelCommand;
+import org.winnow.app.model.EvaluateCommand;
+import org.winnow.app.model.ExportWeightsCommand;
+import org.winnow.app.model.TrainCommand;
+import org.winnow.app.scan.DemoCommand;
+import org.winnow.app.scan.EnumerateCommand;
+import org.winnow.app.scan.ScanCommand;
+import org.winnow.app.watch.WatchCommand;
+import picocli.CommandLine.Command;
+import picocli.CommandLine;
+
+/** The {@code winnow} command line: one subcommand per job. */
+@Command(
+        name = "winnow",
+        mixinStandardHelpOptions = true,
+        versionProvider = WinnowCli.Version.class,
+        description = "Prefilter complete-intersection Calabi-Yau configuration matrices before exact computation.",
+        subcommands = {
+            CommandLine.HelpCommand.class,
+            DemoCommand.class,
+            EnumerateCommand.class,
+            ScanCommand.class,
+            InvariantsCommand.class,
+            TrainCommand.class,
+            EvaluateCommand.class,
+            HodgeCommand.class,
+            LabelCommand.class,
+            ProduceCommand.class,
+            ScoreCommand.class,
+            SinkCommand.class,
+            WatchCommand.class,
+            ExportWeightsCommand.class,
+            org.winnow.app.report.ReportCommand.class,
+        })
+public final class WinnowCli implements Runnable {
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public void run() {
+        spec.commandLine().usage(System.err);
+    }
+
+    /** Builds the command line with the project's conventions (exit 2 on bad options). */
+    public static CommandLine commandLine() {
+        CommandLine cl = new CommandLine(new WinnowCli());
+        cl.setCaseInsensitiveEnumValuesAllowed(true);
+        return cl;
+    }
+
+    public static void main(String[] args) {
+        System.exit(commandLine().execute(args));
+    }
+
+    static final class Version implements CommandLine.IVersionProvider {
+        @Override
+        public String[] getVersion() {
+            String v = WinnowCli.class.getPackage().getImplementationVersion();
+            return new String[] {"winnow " + (v == null ? "development build" : v)};
+        }
+    }
+}

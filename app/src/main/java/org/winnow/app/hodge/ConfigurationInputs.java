@@ -1,0 +1,80 @@
+package org.winnow.app.hodge;
+
+import java.io.BufferedReader;
+import java.io.IOException;
+import java.io.InputStreamReader;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.function.Function;
+import me.tongfei.progressbar.ProgressBar;
+import org.winnow.geometry.ConfigurationText;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+
+/**
+ * The configurations a per-configuration command reads: CONFIG arguments, then every {@code --file F}
+ * line by line ({@code -} is standard input, {@code #} starts a comment, a tab ends the configuration).
+ * A picocli mixin, so {@code invariants} and {@code hodge} read their input the same way.
+ */
+final class ConfigurationInputs {
+    @Option(names = "--file", paramLabel = "F",
+            description = "Read configurations from F, one a line ('-' = standard input; '#' starts a comment; "
+                    + "anything after a tab is ignored). May be repeated.")
+    List<String> files = new ArrayList<>();
+
+    @Parameters(paramLabel = "CONFIG", arity = "0..*",
+            description = "Configurations such as 4:5 or 3:3,0,1/3:0,3,1 (rows n:d1,...,dK joined by '/').")
+    List<String> configs = new ArrayList<>();
+
+    /** One configuration's text, its line number (1 for an argument) and where it came from. */
+    interface Visitor {
+        void visit(String text, int lineNumber, String source);
+    }
+
+    /** A file that cannot be read: its name and the reason. */
+    interface Unreadable {
+        void report(String source, String reason);
+    }
+
+    boolean isEmpty() {
+        return configs.isEmpty() && files.isEmpty();
+    }
+
+    /**
+     * Visits the arguments, then each file's lines; {@code progress} may give a bar per file name (or
+     * null), stepped once a line.
+     */
+    void forEach(Visitor visitor, Unreadable unreadable, Function<String, ProgressBar> progress) {
+        for (int i = 0; i < configs.size(); i++) {
+            visitor.visit(configs.get(i), 1, "argument " + (i + 1));
+        }
+        for (String file : files) {
+            String name = "-".equals(file) ? "standard input" : file;
+            try (BufferedReader reader = "-".equals(file)
+                    ? new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8))
+                    : Files.newBufferedReader(Path.of(file), StandardCharsets.UTF_8);
+                    ProgressBar bar = progress.apply(name)) {
+                String line;
+                int number = 0;
+                while ((line = reader.readLine()) != null) {
+                    number++;
+                    String body = ConfigurationText.stripComment(line);
+                    if (body != null) {
+                        visitor.visit(body, number, name + " line " + number);
+                    }
+                    if (bar != null) {
+                        bar.step();
+                    }
+                }
+            } catch (NoSuchFileException e) {
+                unreadable.report(name, "no such file");
+            } catch (IOException e) {
+                unreadable.report(name, "cannot read: " + e.getMessage());
+            }
+        }
+    }
+}

@@ -1,0 +1,121 @@
+package org.winnow.app.scan;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Locale;
+import java.util.concurrent.Callable;
+import java.util.stream.Stream;
+import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.WinnowCli;
+import org.winnow.sink.ScanFiles;
+import org.winnow.sink.SurvivorLine;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
+import picocli.CommandLine;
+
+/**
+ * {@code winnow demo}: the main job on the built-in demo data. It scans the three-fold space straight
+ * from the producer's enumeration with the shipped frozen model and rules file, and summarises the
+ * survivors. It is the same code path a researcher runs with {@code scan --dim 3}; no candidates file
+ * is written, because the scan's survivors and rejects already name every matrix of the space.
+ */
+@Command(name = "demo", mixinStandardHelpOptions = true,
+        description = "Scan the built-in demo space (all three-fold configuration matrices, rule set lossless) "
+                + "with the shipped model and rules, and summarise the survivors.")
+public final class DemoCommand implements Callable<Integer> {
+    @Option(names = "--out", paramLabel = "DIR", description = "Where the demo run goes (default ${DEFAULT-VALUE}).")
+    Path out = Path.of("demo-out");
+
+    @Option(names = "--data", paramLabel = "DIR",
+            description = "The demo data folder (default: demo-data beside the launcher, else ./demo-data).")
+    Path data;
+
+    @Option(names = "--threads", paramLabel = "N", description = "Scorer threads (default: the number of processors).")
+    Integer threads;
+
+    @CommandLine.Spec
+    CommandLine.Model.CommandSpec spec;
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter err = spec.commandLine().getErr();
+        PrintWriter o = spec.commandLine().getOut();
+        Path dir = data != null ? data : defaultDataDir();
+        Path model = dir.resolve("threefolds-1pct.wnm");
+        Path rules = dir.resolve("rules.txt");
+        for (Path p : List.of(model, rules)) {
+            if (!Files.isReadable(p)) {
+                return Exit.badInput(err, "demo", "missing demo file " + p + " (give --data DIR, the folder demo-data of the project)");
+            }
+        }
+        Files.createDirectories(out);
+        Path scanDir = out.resolve("scan");
+        o.println("winnow demo: scanning every three-fold configuration matrix (rule set lossless) as the producer "
+                + "enumerates it, with model " + model + " and rules " + rules);
+        o.flush();
+        List<String> scan = new ArrayList<>(List.of("scan", "--model", model.toString(), "--dim", "3", "--rules",
+                "lossless", "--rules-file", rules.toString(), "--out", scanDir.toString(), "--rejects"));
+        if (threads != null) {
+            scan.add("--threads");
+            scan.add(threads.toString());
+        }
+        int rc = run(scan.toArray(String[]::new));
+        if (rc != 0) {
+            return rc;
+        }
+        List<SurvivorLine> survivors = readSurvivors(scanDir);
+        survivors.sort(Comparator.comparingDouble(SurvivorLine::novelty).reversed().thenComparing(SurvivorLine::config));
+        o.println();
+        o.println("most novel survivors (novelty near 1 = unlike the reference):");
+        o.printf(Locale.ROOT, "  %-9s %-7s %-5s %-10s %s%n", "novelty", "chi", "h11", "confidence", "config");
+        for (SurvivorLine s : survivors.subList(0, Math.min(10, survivors.size()))) {
+            o.printf(Locale.ROOT, "  %-9.4f %-7d %-5d %-10.3f %s%n", s.novelty(), s.chi(), s.h11(), s.confidence(), s.config());
+        }
+        o.println();
+        o.println("files: survivors in " + scanDir.resolve(ScanFiles.SURVIVORS) + "*, counts in "
+                + scanDir.resolve(ScanFiles.MANIFEST) + ", rejects with reasons in " + scanDir.resolve(ScanFiles.REJECTS) + "*");
+        o.println("next: compute the survivors exactly with  winnow hodge --file <survivor file>");
+        o.flush();
+        return 0;
+    }
+
+    private int run(String... args) {
+        CommandLine cl = WinnowCli.commandLine();
+        cl.setOut(spec.commandLine().getOut());
+        cl.setErr(spec.commandLine().getErr());
+        return cl.execute(args);
+    }
+
+    private static List<SurvivorLine> readSurvivors(Path scanDir) throws IOException {
+        List<SurvivorLine> all = new ArrayList<>();
+        List<Path> files;
+        try (Stream<Path> s = Files.list(scanDir)) {
+            files = s.filter(p -> {
+                String name = p.getFileName().toString();
+                return name.startsWith(ScanFiles.SURVIVORS + "-") && name.endsWith(".tsv");
+            }).sorted().toList();
+        }
+        for (Path f : files) {
+            for (String line : Files.readAllLines(f, StandardCharsets.UTF_8)) {
+                if (!line.isBlank() && !line.startsWith("#") && !line.startsWith("config\t")) {
+                    all.add(SurvivorLine.parse(line));
+                }
+            }
+        }
+        return all;
+    }
+
+    private static Path defaultDataDir() {
+        String home = System.getenv("WINNOW_HOME");
+        if (home != null && Files.isDirectory(Path.of(home, "demo-data"))) {
+            return Path.of(home, "demo-data");
+        }
+        return Path.of("demo-data");
+    }
+}

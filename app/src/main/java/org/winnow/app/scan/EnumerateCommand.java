@@ -1,0 +1,117 @@
+package org.winnow.app.scan;
+
+import java.io.BufferedWriter;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.UncheckedIOException;
+import java.io.Writer;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import me.tongfei.progressbar.ConsoleProgressBarConsumer;
+import me.tongfei.progressbar.ProgressBar;
+import me.tongfei.progressbar.ProgressBarBuilder;
+import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.Terminal;
+import org.winnow.app.cli.WinnowCli;
+import org.winnow.producer.Bounds;
+import org.winnow.producer.EnumerationCounts;
+import org.winnow.producer.Enumerator;
+import org.winnow.producer.RuleSet;
+import org.winnow.producer.ShardSpec;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code winnow enumerate}: stream the canonical configuration matrices of a space, one line each
+ * (the canonical line, then a tab and the identity flags when there are any), or only count them.
+ */
+@Command(name = "enumerate", mixinStandardHelpOptions = true,
+        description = {
+            "Enumerate Calabi-Yau configuration matrices, each permutation class once, in canonical form.",
+            "Defaults lose nothing under the base rules: rows <= min(5d, 16), n <= 2d+1, entries <= 2d+2."})
+public final class EnumerateCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Mixin
+    SpaceOptions space = new SpaceOptions();
+
+    @Option(names = "--count", description = "Print only counts: 'rows=R: N' per number of rows, then 'total: N'.")
+    boolean count;
+
+    @Option(names = "--out", paramLabel = "F", description = "Write the matrices to F instead of standard output.")
+    Path outFile;
+
+    @Override
+    public Integer call() {
+        PrintWriter err = spec.commandLine().getErr();
+        EnumeratedSpace es;
+        try {
+            es = space.space();
+        } catch (IllegalArgumentException e) {
+            return Exit.badInput(err, "enumerate", e.getMessage());
+        }
+        Bounds bounds = es.bounds();
+        RuleSet ruleSet = es.rules();
+        ShardSpec shardSpec = es.shard();
+        Enumerator enumerator = new Enumerator();
+        if (count) {
+            EnumerationCounts c = enumerator.count(bounds, ruleSet, shardSpec);
+            PrintWriter out = spec.commandLine().getOut();
+            for (int m = bounds.minRows(); m <= bounds.maxRows(); m++) {
+                out.println("rows=" + m + ": " + c.rows(m));
+            }
+            out.println("total: " + c.total());
+            out.flush();
+            return 0;
+        }
+        Writer target;
+        try {
+            target = outFile == null
+                    ? spec.commandLine().getOut()
+                    : new BufferedWriter(Files.newBufferedWriter(outFile, StandardCharsets.UTF_8), 1 << 16);
+        } catch (IOException e) {
+            return Exit.badInput(err, "enumerate", "cannot write " + outFile + ": " + e.getMessage());
+        }
+        boolean toFile = outFile != null;
+        try (ProgressBar progress = progressBar()) {
+            Writer w = target;
+            enumerator.run(bounds, ruleSet, shardSpec, e -> {
+                try {
+                    w.write(e.toLine());
+                    w.write('\n');
+                } catch (IOException x) {
+                    throw new UncheckedIOException(x);
+                }
+                if (progress != null) {
+                    progress.step();
+                }
+            });
+            if (toFile) {
+                w.close();
+            } else {
+                w.flush();
+            }
+        } catch (IOException | UncheckedIOException e) {
+            err.println("winnow enumerate: cannot write " + (outFile == null ? "standard output" : outFile)
+                    + ": " + e.getMessage());
+            err.flush();
+            return 1;
+        }
+        return 0;
+    }
+
+    /** Count and rate on stderr, only when a person is watching it. */
+    private static ProgressBar progressBar() {
+        if (!Terminal.stderrIsTerminal()) {
+            return null;
+        }
+        return new ProgressBarBuilder().setTaskName("enumerate").setInitialMax(-1).showSpeed()
+                .setConsumer(new ConsoleProgressBarConsumer(System.err)).build();
+    }
+}
