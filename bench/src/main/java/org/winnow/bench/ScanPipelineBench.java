@@ -11,7 +11,6 @@ import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
 import java.util.concurrent.atomic.AtomicLong;
-import org.winnow.app.scan.InputFileSource;
 import org.winnow.app.scan.ScanJob;
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.BadInputPolicy;
@@ -22,6 +21,7 @@ import org.winnow.pipeline.SourceReport;
 import org.winnow.pipeline.StageContext;
 import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.metrics.SourceMetrics;
+import org.winnow.producer.source.InputFileSource;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.model.Trainer;
 import org.winnow.scorer.model.TrainingOptions;
@@ -74,7 +74,7 @@ public final class ScanPipelineBench {
         Pass sinkPass = () -> sinkAlone(work, scored);
         Pass endToEndPass = () -> {
             Path dir = Files.createTempDirectory(work, "e2e");
-            ScanJob.Settings settings = new ScanJob.Settings(new InputFileSource(input), input, null, null, scoring,
+            ScanJob.Settings settings = new ScanJob.Settings(new InputFileSource(input), input, null, scoring,
                     rules, dir, new SinkOptions(), new LocalPipeline.Options(threads, 1024, 8192), BadInputPolicy.SKIP);
             return ScanJob.run(settings, new SimpleMeterRegistry(), Clock.systemUTC(), CrashHook.NONE, st -> {})
                     .manifest().counts().scored();

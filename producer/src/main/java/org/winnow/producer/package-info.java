@@ -6,6 +6,7 @@
  *
  * <p>Public API: {@link org.winnow.producer.Bounds}, {@link org.winnow.producer.RuleSet},
  * {@link org.winnow.producer.ShardSpec}, {@link org.winnow.producer.ShardPlan},
- * {@link org.winnow.producer.Enumerator}, {@link org.winnow.producer.EnumeratedMatrix}.
+ * {@link org.winnow.producer.Enumerator}, {@link org.winnow.producer.EnumeratedMatrix}; the candidate
+ * sources of a scan (the enumeration and an input file) are in {@code org.winnow.producer.source}.
  */
 package org.winnow.producer;

@@ -20,6 +20,7 @@ import org.winnow.producer.EnumerationCounts;
 import org.winnow.producer.Enumerator;
 import org.winnow.producer.RuleSet;
 import org.winnow.producer.ShardSpec;
+import org.winnow.producer.source.EnumeratedSpace;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;

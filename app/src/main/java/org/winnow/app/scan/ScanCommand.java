@@ -23,6 +23,9 @@ import org.winnow.pipeline.KeyLimitException;
 import org.winnow.pipeline.SeenKeys;
 import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.local.PipelineException;
+import org.winnow.producer.source.EnumeratedSpace;
+import org.winnow.producer.source.EnumerationSource;
+import org.winnow.producer.source.InputFileSource;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.rules.RuleException;
 import org.winnow.scorer.rules.RulesFile;
@@ -222,8 +225,7 @@ public final class ScanCommand implements Callable<Integer> {
                     model.toString().length()).replaceFirst("^:\\s*", "") : msg));
         }
         int workers = threads != null ? threads : Runtime.getRuntime().availableProcessors();
-        return new ScanJob.Settings(source, input, enumerated == null ? null : enumerated.key(),
-                enumerated == null ? null : enumerated.manifestValue(), scoring, rules, out,
+        return new ScanJob.Settings(source, input, enumerated, scoring, rules, out,
                 new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5)),
                 new LocalPipeline.Options(workers, queue, Math.max(8 * queue, 64)),
                 strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP);

@@ -16,6 +16,7 @@ import org.winnow.pipeline.Sequencer;
 import org.winnow.pipeline.SourceReport;
 import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.local.PipelineException;
+import org.winnow.producer.source.EnumeratedSpace;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.stage.ScorerStage;
 import org.winnow.scorer.stage.ScoringFunctions;
@@ -36,8 +37,8 @@ public final class ScanJob {
      *
      * @param source      where candidates come from
      * @param sourceFile  the input file whose bytes identify the scan, or null for an enumeration
-     * @param sourceKey   what identifies an enumeration (its bounds, rules and shard); ignored for a file
-     * @param bounds      the bounds for the manifest, or null
+     * @param space       the enumerated space (it identifies the scan and its bounds go to the manifest), or
+     *                    null for an input file
      * @param scoring     the per-thread scoring parts
      * @param rules       the keep rules
      * @param out         the scan directory
@@ -45,7 +46,7 @@ public final class ScanJob {
      * @param pipeline    threads and queue sizes
      * @param policy      what to do with a bad input line
      */
-    public record Settings(CandidateSource source, Path sourceFile, String sourceKey, Object bounds,
+    public record Settings(CandidateSource source, Path sourceFile, EnumeratedSpace space,
             ScoringFunctions scoring, KeepRules rules, Path out, SinkOptions sink, LocalPipeline.Options pipeline,
             BadInputPolicy policy) {
         public Settings {
@@ -68,7 +69,7 @@ public final class ScanJob {
     public static String runId(Settings s) throws IOException {
         List<String> parts = new ArrayList<>();
         parts.add("winnow scan format " + ScanFiles.FORMAT_VERSION);
-        parts.add(s.sourceFile() != null ? "input file" : "enumeration " + s.sourceKey());
+        parts.add(s.sourceFile() != null ? "input file" : "enumeration " + (s.space() == null ? null : s.space().key()));
         parts.addAll(s.rules().describe());
         parts.add("model " + s.scoring().modelChecksum());
         parts.add("lines per file " + s.sink().linesPerFile());
@@ -90,7 +91,8 @@ public final class ScanJob {
             Sequencer q = sequencer.get();
             return q == null ? null : q.report();
         };
-        ScanInfo info = new ScanInfo(runId(s), s.source().description(), s.bounds(), s.rules().describe(),
+        ScanInfo info = new ScanInfo(runId(s), s.source().description(),
+                s.space() == null ? null : s.space().manifestValue(), s.rules().describe(),
                 s.scoring().modelChecksum());
         SurvivorSink sink = SurvivorSink.open(s.out(), info, s.sink(), clock, report, hook);
         started.accept(new ScanStatus(registry, report, s.source().size()));

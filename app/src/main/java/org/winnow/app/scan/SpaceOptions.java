@@ -3,6 +3,7 @@ package org.winnow.app.scan;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.RuleSet;
 import org.winnow.producer.ShardSpec;
+import org.winnow.producer.source.EnumeratedSpace;
 import picocli.CommandLine.Option;
 
 /**

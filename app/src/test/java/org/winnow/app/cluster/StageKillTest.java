@@ -19,13 +19,13 @@ import org.winnow.app.cluster.ClusterFixtures.FaultLog;
 import org.winnow.app.scan.ScanFixtures;
 import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
 import org.winnow.kafkatestkit.KafkaBroker;
-import org.winnow.app.scan.InputFileSource;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.kafka.KafkaSettings;
 import org.winnow.pipeline.kafka.RejectsOnWire;
 import org.winnow.pipeline.kafka.RunAdmin;
 import org.winnow.pipeline.kafka.RunTopics;
 import org.winnow.pipeline.kafka.TopicLayout;
+import org.winnow.producer.source.InputFileSource;
 
 /**
  * Exactly once under real faults, with every stage a real {@code winnow} command in a JVM of its own: one

@@ -1,5 +1,8 @@
 package org.winnow.app.scan;
 
+import org.winnow.producer.source.InputFileSource;
+import org.winnow.producer.source.EnumerationSource;
+import org.winnow.producer.source.EnumeratedSpace;
 import org.winnow.app.cli.MetricsServer;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -36,7 +39,7 @@ import org.winnow.sink.SinkOptions;
 
 class ScanJobTest {
     private static ScanJob.Settings settings(ScanFixtures.Input in, Path out) {
-        return new ScanJob.Settings(new InputFileSource(in.file()), in.file(), null, null,
+        return new ScanJob.Settings(new InputFileSource(in.file()), in.file(), null,
                 new ModelScoring(ScanFixtures.model()), KeepRules.of(List.of("h11=2..5", "chi=-150..0"), 0.5, 0.9), out,
                 new SinkOptions(30, true, 40, Duration.ofSeconds(1)), new LocalPipeline.Options(2, 8, 64),
                 BadInputPolicy.SKIP);
@@ -48,7 +51,7 @@ class ScanJobTest {
 
     private static ScanJob.Settings boundsSettings(Path out) {
         return new ScanJob.Settings(new EnumerationSource(SMALL_SPACE, EnumerationSource.COUNT_BUDGET, System::nanoTime),
-                null, SMALL_SPACE.key(), SMALL_SPACE.manifestValue(), new ModelScoring(ScanFixtures.model()),
+                null, SMALL_SPACE, new ModelScoring(ScanFixtures.model()),
                 KeepRules.of(List.of("h11=2..5", "chi=-150..0"), 0.5, 0.9), out,
                 new SinkOptions(30, true, 40, Duration.ofSeconds(1)), new LocalPipeline.Options(2, 8, 64),
                 BadInputPolicy.SKIP);

@@ -1,4 +1,4 @@
-package org.winnow.app.scan;
+package org.winnow.producer.source;
 
 import java.time.Duration;
 import java.util.Objects;
