@@ -9,9 +9,10 @@ import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 
 /**
- * The module graph is a DAG: geometry depends on nothing of ours, pipeline only on geometry, and the
- * three stages never import each other. Only app wires them. Checked here on the compiled classes
- * rather than left to memory.
+ * The module graph is a DAG: geometry depends on nothing of ours, pipeline only on geometry, the three
+ * stages never import each other, and the Kafka transport (module {@code kafka}) sits beside the stages,
+ * used only by app (and bench): neither the stage contract nor a stage may reach it. Only app wires
+ * them. Checked here on the compiled classes rather than left to memory.
  */
 class ModuleBoundariesTest {
     private static JavaClasses classes;
@@ -27,7 +28,7 @@ class ModuleBoundariesTest {
     void geometryDependsOnNothingOfOurs() {
         noClasses().that().resideInAPackage("org.winnow.geometry..")
                 .should().dependOnClassesThat().resideInAnyPackage(
-                        "org.winnow.pipeline..", "org.winnow.producer..", "org.winnow.scorer..",
+                        "org.winnow.pipeline..", "org.winnow.kafka..", "org.winnow.producer..", "org.winnow.scorer..",
                         "org.winnow.sink..", "org.winnow.app..", "org.winnow.bench..")
                 .allowEmptyShould(true)
                 .check(classes);
@@ -37,8 +38,34 @@ class ModuleBoundariesTest {
     void pipelineDependsOnlyOnGeometry() {
         noClasses().that().resideInAPackage("org.winnow.pipeline..")
                 .should().dependOnClassesThat().resideInAnyPackage(
+                        "org.winnow.kafka..", "org.winnow.producer..", "org.winnow.scorer..", "org.winnow.sink..",
+                        "org.winnow.app..", "org.winnow.bench..")
+                .allowEmptyShould(true)
+                .check(classes);
+    }
+
+    @Test
+    void kafkaTransportDependsOnlyOnPipelineAndGeometry() {
+        noClasses().that().resideInAPackage("org.winnow.kafka..")
+                .should().dependOnClassesThat().resideInAnyPackage(
                         "org.winnow.producer..", "org.winnow.scorer..", "org.winnow.sink..",
                         "org.winnow.app..", "org.winnow.bench..")
+                .allowEmptyShould(true)
+                .check(classes);
+    }
+
+    @Test
+    void noStageUsesTheKafkaTransportOrItsClients() {
+        noClasses().that().resideInAnyPackage("org.winnow.producer..", "org.winnow.scorer..", "org.winnow.sink..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.winnow.kafka..", "org.apache.kafka..")
+                .allowEmptyShould(true)
+                .check(classes);
+    }
+
+    @Test
+    void pipelineUsesNoKafkaClients() {
+        noClasses().that().resideInAPackage("org.winnow.pipeline..")
+                .should().dependOnClassesThat().resideInAnyPackage("org.apache.kafka..", "com.esotericsoftware..")
                 .allowEmptyShould(true)
                 .check(classes);
     }

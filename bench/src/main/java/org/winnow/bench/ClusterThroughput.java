@@ -23,11 +23,11 @@ import org.winnow.app.cluster.ClusterScorer;
 import org.winnow.app.cluster.ClusterSink;
 import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
 import org.winnow.pipeline.BadInputPolicy;
-import org.winnow.pipeline.kafka.ExactlyOnceRelay;
-import org.winnow.pipeline.kafka.KafkaSettings;
-import org.winnow.pipeline.kafka.RejectsOnWire;
-import org.winnow.pipeline.kafka.RunTopics;
-import org.winnow.pipeline.kafka.TopicLayout;
+import org.winnow.kafka.ExactlyOnceRelay;
+import org.winnow.kafka.KafkaSettings;
+import org.winnow.kafka.RejectsOnWire;
+import org.winnow.kafka.RunTopics;
+import org.winnow.kafka.TopicLayout;
 import org.winnow.producer.source.InputFileSource;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.FrozenModel;
@@ -178,7 +178,7 @@ public final class ClusterThroughput implements Callable<Integer> {
             try {
                 return ClusterScorer.join(kafka, run, name, scoring, rules, new SimpleMeterRegistry(),
                         ExactlyOnceRelay.Listener.NONE);
-            } catch (org.winnow.pipeline.kafka.ClusterRefusedException e) {
+            } catch (org.winnow.kafka.ClusterRefusedException e) {
                 if (System.nanoTime() > deadline) {
                     throw e;
                 }

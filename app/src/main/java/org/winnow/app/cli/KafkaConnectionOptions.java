@@ -1,7 +1,7 @@
 package org.winnow.app.cli;
 
 import java.nio.file.Path;
-import org.winnow.pipeline.kafka.KafkaSettings;
+import org.winnow.kafka.KafkaSettings;
 import picocli.CommandLine.Option;
 
 /** The broker address and client properties shared by every cluster stage, as one picocli mixin. */

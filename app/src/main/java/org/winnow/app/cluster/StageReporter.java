@@ -3,9 +3,9 @@ package org.winnow.app.cluster;
 import io.micrometer.core.instrument.MeterRegistry;
 import java.time.Clock;
 import java.time.Duration;
-import org.winnow.pipeline.kafka.KafkaSettings;
-import org.winnow.pipeline.kafka.MetricsPublisher;
-import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.kafka.KafkaSettings;
+import org.winnow.kafka.MetricsPublisher;
+import org.winnow.kafka.RunTopics;
 import org.winnow.pipeline.metrics.SnapshotTaker;
 import org.winnow.pipeline.metrics.StageKind;
 

@@ -12,7 +12,7 @@ import org.apache.kafka.clients.admin.OffsetSpec;
 import org.apache.kafka.clients.consumer.OffsetAndMetadata;
 import org.apache.kafka.common.KafkaException;
 import org.apache.kafka.common.TopicPartition;
-import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.kafka.RunTopics;
 
 /**
  * Consumer lag of a run: the end offsets of the candidates and scored topics (the admin client's

@@ -10,12 +10,12 @@ import org.apache.kafka.clients.consumer.KafkaConsumer;
 import org.apache.kafka.common.TopicPartition;
 import org.apache.kafka.common.serialization.ByteArrayDeserializer;
 import org.apache.kafka.common.serialization.StringDeserializer;
-import org.winnow.pipeline.kafka.ClusterRefusedException;
-import org.winnow.pipeline.kafka.KafkaSettings;
-import org.winnow.pipeline.kafka.MetricsPublisher;
-import org.winnow.pipeline.kafka.RunTopics;
-import org.winnow.pipeline.kafka.WireFormatException;
-import org.winnow.pipeline.kafka.WireHeaders;
+import org.winnow.kafka.ClusterRefusedException;
+import org.winnow.kafka.KafkaSettings;
+import org.winnow.kafka.MetricsPublisher;
+import org.winnow.kafka.RunTopics;
+import org.winnow.kafka.WireFormatException;
+import org.winnow.kafka.WireHeaders;
 
 /**
  * Reads a run's metrics topic from its beginning into a {@link ClusterView}. A record stamped with another

@@ -7,9 +7,9 @@ import java.util.concurrent.atomic.AtomicBoolean;
 import java.util.function.Consumer;
 import org.winnow.app.cluster.ClusterScorer;
 import org.winnow.app.cluster.ClusterSink;
-import org.winnow.pipeline.kafka.KafkaSettings;
-import org.winnow.pipeline.kafka.RunAdmin;
-import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.kafka.KafkaSettings;
+import org.winnow.kafka.RunAdmin;
+import org.winnow.kafka.RunTopics;
 
 /** The watch loop of one run: snapshots in, lag read, a point of history per interval. */
 public final class Watcher implements AutoCloseable {
@@ -31,7 +31,7 @@ public final class Watcher implements AutoCloseable {
     /**
      * Connects to the run.
      *
-     * @throws org.winnow.pipeline.kafka.ClusterRefusedException when no broker answers or the run does not exist
+     * @throws org.winnow.kafka.ClusterRefusedException when no broker answers or the run does not exist
      */
     public static Watcher open(KafkaSettings settings, RunTopics run, Clock clock) {
         Objects.requireNonNull(clock, "clock");

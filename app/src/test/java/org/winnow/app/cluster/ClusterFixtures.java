@@ -16,8 +16,8 @@ import org.apache.kafka.clients.admin.OffsetSpec;
 import org.apache.kafka.clients.consumer.OffsetAndMetadata;
 import org.apache.kafka.common.TopicPartition;
 import org.winnow.app.cli.WinnowCli;
-import org.winnow.pipeline.kafka.RunAdmin;
-import org.winnow.pipeline.kafka.RunTopics;
+import org.winnow.kafka.RunAdmin;
+import org.winnow.kafka.RunTopics;
 import org.winnow.sink.Manifest;
 import org.winnow.sink.ScanFiles;
 

@@ -20,11 +20,11 @@ import org.winnow.app.scan.ScanFixtures;
 import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
 import org.winnow.kafkatestkit.KafkaBroker;
 import org.winnow.pipeline.BadInputPolicy;
-import org.winnow.pipeline.kafka.KafkaSettings;
-import org.winnow.pipeline.kafka.RejectsOnWire;
-import org.winnow.pipeline.kafka.RunAdmin;
-import org.winnow.pipeline.kafka.RunTopics;
-import org.winnow.pipeline.kafka.TopicLayout;
+import org.winnow.kafka.KafkaSettings;
+import org.winnow.kafka.RejectsOnWire;
+import org.winnow.kafka.RunAdmin;
+import org.winnow.kafka.RunTopics;
+import org.winnow.kafka.TopicLayout;
 import org.winnow.producer.source.InputFileSource;
 
 /**

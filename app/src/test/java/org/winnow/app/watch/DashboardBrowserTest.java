@@ -32,12 +32,12 @@ import org.winnow.pipeline.Estimate;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
-import org.winnow.pipeline.kafka.KafkaSettings;
-import org.winnow.pipeline.kafka.MetricsPublisher;
-import org.winnow.pipeline.kafka.RunAdmin;
-import org.winnow.pipeline.kafka.RunDescriptor;
-import org.winnow.pipeline.kafka.RunTopics;
-import org.winnow.pipeline.kafka.TopicLayout;
+import org.winnow.kafka.KafkaSettings;
+import org.winnow.kafka.MetricsPublisher;
+import org.winnow.kafka.RunAdmin;
+import org.winnow.kafka.RunDescriptor;
+import org.winnow.kafka.RunTopics;
+import org.winnow.kafka.TopicLayout;
 import org.winnow.pipeline.metrics.ScorerMetrics;
 import org.winnow.pipeline.metrics.StageKind;
 

@@ -2,7 +2,6 @@ package org.winnow.pipeline.metrics;
 
 import static org.junit.jupiter.api.Assertions.assertArrayEquals;
 import static org.junit.jupiter.api.Assertions.assertEquals;
-import static org.junit.jupiter.api.Assertions.assertThrows;
 
 import io.micrometer.core.instrument.simple.SimpleMeterRegistry;
 import java.time.Clock;
@@ -18,8 +17,6 @@ import org.winnow.pipeline.Estimate;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
-import org.winnow.pipeline.kafka.MetricsPublisher;
-import org.winnow.pipeline.kafka.WireTypes;
 
 class SnapshotTakerTest {
     private static final Configuration QUINTIC = Configuration.parse("4:5");
@@ -108,21 +105,5 @@ class SnapshotTakerTest {
         assertEquals(3, k.candidates());
         assertEquals(2, k.count(Reason.EXACT_CHI_OUT_OF_RANGE));
         assertEquals(1, k.count(Reason.KEPT_IN_RANGE));
-    }
-
-    @Test
-    void snapshotsRoundTripOnTheWireAndBadOnesAreRefused() {
-        MetricSnapshot s = new MetricSnapshot("r1", "score", "a", "9@2", 3, 12345, 40, 2.5,
-                new String[] {"kept-in-range", "kept-as-novel"}, new long[] {30, 10}, new long[10]);
-        MetricSnapshot back = MetricsPublisher.decode(WireTypes.metrics().build().encode(s));
-        assertEquals(s.instance(), back.instance());
-        assertEquals(s.incarnation(), back.incarnation());
-        assertEquals(s.candidatesPerSecond(), back.candidatesPerSecond());
-        assertArrayEquals(s.reasonCounts(), back.reasonCounts());
-        assertEquals(10, back.count(Reason.KEPT_AS_NOVEL));
-        assertThrows(IllegalArgumentException.class, () -> new MetricSnapshot("r1", "scorer", "a", "1", 0, 0, 0, 0,
-                new String[0], new long[0], new long[0]), "unknown stage kind");
-        assertThrows(IllegalArgumentException.class, () -> new MetricSnapshot("r1", "sink", "a", "1", 0, 0, 0, 0,
-                new String[1], new long[0], new long[0]), "reasons and counts differ in length");
     }
 }
