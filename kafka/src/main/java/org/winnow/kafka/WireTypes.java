@@ -2,7 +2,7 @@ package org.winnow.kafka;
 
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Candidate;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -23,11 +23,13 @@ public final class WireTypes {
     public static final int CONFIGURATION = 110;
     public static final int CANDIDATE = 120;
     public static final int EXACT_INVARIANTS = 121;
-    public static final int ESTIMATE = 122;
+    /** Retired: the prediction record before novelty and the four-fold numbers joined it; never reuse. */
+    public static final int RETIRED_ESTIMATE = 122;
     public static final int SCORED = 123;
     public static final int VERDICT = 124;
     public static final int REASON = 125;
     public static final int SLIM_REJECT = 126;
+    public static final int PREDICTION = 127;
     public static final int SHARD_PROGRESS = 130;
     public static final int SOURCE_REPORT = 131;
     public static final int METRIC_SNAPSHOT = 140;
@@ -54,7 +56,7 @@ public final class WireTypes {
         return base()
                 .register(Candidate.class, CANDIDATE)
                 .register(ExactInvariants.class, EXACT_INVARIANTS)
-                .register(Estimate.class, ESTIMATE)
+                .register(Prediction.class, PREDICTION)
                 .register(Scored.class, SCORED)
                 .register(Verdict.class, VERDICT)
                 .register(Reason.class, REASON)

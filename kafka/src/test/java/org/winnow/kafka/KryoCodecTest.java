@@ -52,9 +52,9 @@ class KryoCodecTest {
         org.winnow.pipeline.Candidate cand = new org.winnow.pipeline.Candidate(c, c.toText(), 3, 41L);
         var exact = new org.winnow.pipeline.ExactInvariants(3, -108, 3, 2, 1);
         for (Integer h21 : new Integer[] {null, 57}) {
-            var s = org.winnow.pipeline.Scored.of(cand, exact,
-                    new org.winnow.pipeline.Estimate(3, 0.75, h21, "4:5"), 0.125,
-                    org.winnow.pipeline.Reason.KEPT_LOW_CONFIDENCE);
+            var p = new org.winnow.pipeline.Prediction(3, 0.75, h21, h21 == null ? null : 2, h21 == null ? null : 0,
+                    0.125, "4:5");
+            var s = org.winnow.pipeline.Scored.of(cand, exact, p, org.winnow.pipeline.Reason.KEPT_LOW_CONFIDENCE);
             assertEquals(s, stages.decode(stages.encode(s), org.winnow.pipeline.Scored.class));
         }
         assertEquals(cand, stages.decode(stages.encode(cand), org.winnow.pipeline.Candidate.class));

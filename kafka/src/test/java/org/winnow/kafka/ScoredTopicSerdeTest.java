@@ -11,7 +11,7 @@ import org.apache.kafka.common.header.internals.RecordHeaders;
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Candidate;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -29,8 +29,7 @@ class ScoredTopicSerdeTest {
             Configuration c = KryoCodecTest.randomConfiguration(random);
             Candidate cand = new Candidate(c, c.toText(), random.nextInt(4), random.nextLong(1L << 40));
             Reason reason = reasons[random.nextInt(reasons.length)];
-            Scored whole = Scored.of(cand, new ExactInvariants(3, -2L * random.nextInt(100), c.rows(), c.cols(), 1),
-                    new Estimate(random.nextInt(20), 0.5, null, "4:5"), random.nextDouble(), reason);
+            Scored whole = Scored.of(cand, new ExactInvariants(3, -2L * random.nextInt(100), c.rows(), c.cols(), 1), Prediction.of(random.nextInt(20), 0.5, null, random.nextDouble(), "4:5"), reason);
             RecordHeaders wholeHeaders = new RecordHeaders();
             byte[] wholeBytes = SERDE.serialize("t", wholeHeaders, whole);
             assertNull(wholeHeaders.lastHeader(ScoredTopicSerde.KIND), "a whole record keeps the bytes of older runs");

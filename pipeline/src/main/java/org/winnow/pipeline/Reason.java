@@ -2,46 +2,65 @@ package org.winnow.pipeline;
 
 import java.util.Arrays;
 import java.util.List;
+import java.util.Optional;
 
 /**
  * Why a candidate was kept or rejected. Every verdict carries exactly one reason, so the counts by
  * reason add up to the number of candidates scored. The {@link #code()} is what files and metrics show.
+ *
+ * <p>Every rejection names the {@link Keepable} invariant outside its range and takes its code from it.
+ * The declaration order is the order in which manifests and status lines list the reasons.
  */
 public enum Reason {
     /** The exact dimension lies outside its keep range. */
-    EXACT_DIM_OUT_OF_RANGE("exact-dim-out-of-range", Verdict.REJECT),
+    EXACT_DIM_OUT_OF_RANGE(Keepable.DIM),
     /** The exact Euler characteristic lies outside its keep range. */
-    EXACT_CHI_OUT_OF_RANGE("exact-chi-out-of-range", Verdict.REJECT),
+    EXACT_CHI_OUT_OF_RANGE(Keepable.CHI),
     /** The number of projective factors lies outside its keep range. */
-    EXACT_ROWS_OUT_OF_RANGE("exact-rows-out-of-range", Verdict.REJECT),
+    EXACT_ROWS_OUT_OF_RANGE(Keepable.ROWS),
     /** The number of polynomials lies outside its keep range. */
-    EXACT_COLS_OUT_OF_RANGE("exact-cols-out-of-range", Verdict.REJECT),
+    EXACT_COLS_OUT_OF_RANGE(Keepable.COLS),
     /** The number of blocks lies outside its keep range. */
-    EXACT_BLOCKS_OUT_OF_RANGE("exact-blocks-out-of-range", Verdict.REJECT),
+    EXACT_BLOCKS_OUT_OF_RANGE(Keepable.BLOCKS),
     /** h^{1,1} is confidently predicted outside its keep range and the candidate looks familiar. */
-    PREDICTED_H11_OUT_OF_RANGE("predicted-h11-out-of-range", Verdict.REJECT),
+    PREDICTED_H11_OUT_OF_RANGE(Keepable.H11),
     /** h^{2,1} is confidently predicted outside its keep range and the candidate looks familiar. */
-    PREDICTED_H21_OUT_OF_RANGE("predicted-h21-out-of-range", Verdict.REJECT),
+    PREDICTED_H21_OUT_OF_RANGE(Keepable.H21),
     /** Every exact and predicted invariant lies in its range. */
-    KEPT_IN_RANGE("kept-in-range", Verdict.KEEP),
+    KEPT_IN_RANGE("kept-in-range"),
     /** A prediction is outside its range, but the candidate is unlike the reference set. */
-    KEPT_AS_NOVEL("kept-as-novel", Verdict.KEEP),
+    KEPT_AS_NOVEL("kept-as-novel"),
     /** A prediction is outside its range, but with a confidence below the threshold. */
-    KEPT_LOW_CONFIDENCE("kept-low-confidence", Verdict.KEEP),
+    KEPT_LOW_CONFIDENCE("kept-low-confidence"),
     /** A rule names an invariant the model does not determine for this candidate. */
-    KEPT_UNDECIDED("kept-undecided", Verdict.KEEP);
+    KEPT_UNDECIDED("kept-undecided");
 
     private final String code;
     private final Verdict verdict;
+    private final Keepable invariant;
 
-    Reason(String code, Verdict verdict) {
+    /** A keep. */
+    Reason(String code) {
         this.code = code;
-        this.verdict = verdict;
+        this.verdict = Verdict.KEEP;
+        this.invariant = null;
+    }
+
+    /** A rejection because {@code invariant} lies outside its range. */
+    Reason(Keepable invariant) {
+        this.code = invariant.rejectionCode();
+        this.verdict = Verdict.REJECT;
+        this.invariant = invariant;
     }
 
     /** The stable lower-case code used in files, manifests and metric tags. */
     public String code() {
         return code;
+    }
+
+    /** The invariant outside its range, for a rejection; empty for a keep. */
+    public Optional<Keepable> invariant() {
+        return Optional.ofNullable(invariant);
     }
 
     /** The verdict this reason stands for. */

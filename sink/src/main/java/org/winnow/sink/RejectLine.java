@@ -17,9 +17,9 @@ public record RejectLine(String config, long chi, int h11, double confidence, In
     /** The line of a rejected record. */
     public static String format(Scored s) {
         Checks.requireArgument(s.verdict() == Verdict.REJECT, "not a reject: %s", s.reason().code());
-        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + s.estimate().h11() + '\t'
-                + SurvivorLine.fraction(s.estimate().confidence()) + '\t'
-                + (s.estimate().h21() == null ? SurvivorLine.UNDETERMINED : s.estimate().h21()) + '\t'
+        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + s.prediction().h11() + '\t'
+                + SurvivorLine.fraction(s.prediction().confidence()) + '\t'
+                + (s.prediction().h21() == null ? SurvivorLine.UNDETERMINED : s.prediction().h21()) + '\t'
                 + SurvivorLine.fraction(s.novelty()) + '\t' + s.reason().code();
     }
 

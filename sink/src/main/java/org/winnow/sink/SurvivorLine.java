@@ -20,9 +20,9 @@ public record SurvivorLine(String config, long chi, int h11, double confidence, 
     /** The line of a kept record. */
     public static String format(Scored s) {
         Checks.requireArgument(s.verdict() == org.winnow.pipeline.Verdict.KEEP, "not a survivor: %s", s.reason().code());
-        String ref = s.estimate().nearestReference();
-        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + s.estimate().h11() + '\t'
-                + fraction(s.estimate().confidence()) + '\t' + (s.estimate().h21() == null ? UNDETERMINED : s.estimate().h21())
+        String ref = s.prediction().nearestReference();
+        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + s.prediction().h11() + '\t'
+                + fraction(s.prediction().confidence()) + '\t' + (s.prediction().h21() == null ? UNDETERMINED : s.prediction().h21())
                 + '\t' + fraction(s.novelty()) + '\t' + s.reason().code() + '\t' + (ref.isEmpty() ? UNDETERMINED : ref);
     }
 

@@ -15,7 +15,7 @@ import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.Candidate;
 import org.winnow.pipeline.CandidateSource;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -85,7 +85,7 @@ final class Fixtures {
         double nov = Math.floorMod(h >>> 13, 1000) / 999.0;
         Integer h21 = pick == 4 ? null : Math.floorMod(h, 90);
         return Scored.of(c, new ExactInvariants(c.config().dimension(), -2L * Math.floorMod(h, 100), c.config().rows(),
-                c.config().cols(), 1), new Estimate(1 + Math.floorMod(h, 9), conf, h21, pick == 1 ? "" : "4:5"), nov, r);
+                c.config().cols(), 1), Prediction.of(1 + Math.floorMod(h, 9), conf, h21, nov, pick == 1 ? "" : "4:5"), r);
     }
 
     static final class FakeScorer implements Stage<Candidate, Scored> {

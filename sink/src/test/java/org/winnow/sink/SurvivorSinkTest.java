@@ -85,12 +85,12 @@ class SurvivorSinkTest {
             Scored d = direct.get(s.config());
             assertEquals(Verdict.KEEP, d.verdict());
             assertEquals(d.reason(), s.keptBecause());
-            assertEquals(d.estimate().h11(), s.h11());
-            assertEquals(d.estimate().h21(), s.h21());
+            assertEquals(d.prediction().h11(), s.h11());
+            assertEquals(d.prediction().h21(), s.h21());
             assertEquals(d.invariants().chi(), s.chi());
-            assertEquals(d.estimate().confidence(), s.confidence(), 5e-7);
+            assertEquals(d.prediction().confidence(), s.confidence(), 5e-7);
             assertEquals(d.novelty(), s.novelty(), 5e-7);
-            assertEquals(d.estimate().nearestReference(), s.nearestReference());
+            assertEquals(d.prediction().nearestReference(), s.nearestReference());
         }
         for (RejectLine r : rejects) {
             assertEquals(direct.get(r.config()).reason(), r.rejectedBecause());

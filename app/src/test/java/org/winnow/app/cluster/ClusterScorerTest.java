@@ -28,9 +28,6 @@ import org.apache.kafka.common.serialization.StringSerializer;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.Timeout;
 import org.winnow.geometry.Configuration;
-import org.winnow.pipeline.Candidate;
-import org.winnow.pipeline.Estimate;
-import org.winnow.pipeline.Scored;
 import org.winnow.kafka.ClusterRefusedException;
 import org.winnow.kafka.ExactlyOnceRelay;
 import org.winnow.kafka.KafkaSettings;
@@ -47,11 +44,13 @@ import org.winnow.kafka.WireHeaders;
 import org.winnow.kafka.WireTypes;
 import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
 import org.winnow.kafkatestkit.KafkaBroker;
+import org.winnow.pipeline.Candidate;
+import org.winnow.pipeline.Prediction;
+import org.winnow.pipeline.Scored;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.stage.CandidateScorer;
 import org.winnow.scorer.stage.CheapInvariantFunction;
 import org.winnow.scorer.stage.InvariantFunction;
-import org.winnow.scorer.stage.Predicted;
 import org.winnow.scorer.stage.PredictionFunction;
 import org.winnow.scorer.stage.ScoringFunctions;
 
@@ -194,9 +193,7 @@ class ClusterScorerTest {
 
             @Override
             public PredictionFunction newPredictions() {
-                return (config, exact) -> new Predicted(new Estimate(config.rows() + config.cols(), 0.95,
-                        exact.dim() == 3 ? (int) (config.rows() + config.cols() - exact.chi() / 2) : null,
-                        "4:5"), Math.floorMod(config.hashCode(), 100) / 100.0);
+                return (config, exact) -> Prediction.of(config.rows() + config.cols(), 0.95, exact.dim() == 3 ? (int) (config.rows() + config.cols() - exact.chi() / 2) : null, Math.floorMod(config.hashCode(), 100) / 100.0, "4:5");
             }
 
             @Override

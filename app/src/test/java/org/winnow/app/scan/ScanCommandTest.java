@@ -88,11 +88,11 @@ class ScanCommandTest {
                 assertEquals(Verdict.KEEP, d.verdict());
                 assertEquals(d.reason(), s.keptBecause());
                 assertEquals(d.invariants().chi(), s.chi());
-                assertEquals(d.estimate().h11(), s.h11());
-                assertEquals(d.estimate().h21(), s.h21());
-                assertEquals(d.estimate().confidence(), s.confidence(), 5e-7);
+                assertEquals(d.prediction().h11(), s.h11());
+                assertEquals(d.prediction().h21(), s.h21());
+                assertEquals(d.prediction().confidence(), s.confidence(), 5e-7);
                 assertEquals(d.novelty(), s.novelty(), 5e-7);
-                assertEquals(d.estimate().nearestReference(), s.nearestReference());
+                assertEquals(d.prediction().nearestReference(), s.nearestReference());
                 seen.merge(s.keptBecause(), 1, Integer::sum);
                 survivors++;
             }

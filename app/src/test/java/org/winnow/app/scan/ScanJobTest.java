@@ -185,11 +185,11 @@ class ScanJobTest {
         var cfg = org.winnow.geometry.Configuration.parse("4:5");
         var cand = new org.winnow.pipeline.Candidate(cfg, "4:5", 0, 0);
         var inv = new org.winnow.pipeline.ExactInvariants(3, -200, 1, 1, 1);
-        var est = new org.winnow.pipeline.Estimate(1, 1, 101, "");
+        var est = org.winnow.pipeline.Prediction.of(1, 1, 101, 0.5, "");
         for (int i = 0; i < 100; i++) {
             org.winnow.pipeline.Reason r = i < 30 ? org.winnow.pipeline.Reason.EXACT_CHI_OUT_OF_RANGE
                     : i < 40 ? org.winnow.pipeline.Reason.KEPT_AS_NOVEL : org.winnow.pipeline.Reason.KEPT_IN_RANGE;
-            metrics.scored(org.winnow.pipeline.Scored.of(cand, inv, est, 0.5, r), 10);
+            metrics.scored(org.winnow.pipeline.Scored.of(cand, inv, est, r), 10);
         }
         // 100 scored in 2 s: 50/s; 900 left: 18 s.
         assertEquals("100 scored, 50/s, rejected 30.0% (exact-chi-out-of-range 30.0%), kept as novel 10, ETA 0:00:18",

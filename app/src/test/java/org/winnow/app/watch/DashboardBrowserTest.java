@@ -28,7 +28,7 @@ import org.winnow.geometry.Configuration;
 import org.winnow.kafkatestkit.EmbeddedKafkaBroker;
 import org.winnow.kafkatestkit.KafkaBroker;
 import org.winnow.pipeline.Candidate;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -122,8 +122,7 @@ class DashboardBrowserTest {
     private static void score(ScorerMetrics metrics, SplittableRandom random, int n) {
         for (int i = 0; i < n; i++) {
             Reason r = Reason.values()[random.nextInt(Reason.values().length)];
-            metrics.scored(Scored.of(new Candidate(QUINTIC, "k", 0, i), new ExactInvariants(3, -200, 1, 1, 1),
-                    new Estimate(1, 1.0, 101, ""), random.nextDouble(), r), 1000);
+            metrics.scored(Scored.of(new Candidate(QUINTIC, "k", 0, i), new ExactInvariants(3, -200, 1, 1, 1), Prediction.of(1, 1.0, 101, random.nextDouble(), ""), r), 1000);
         }
     }
 

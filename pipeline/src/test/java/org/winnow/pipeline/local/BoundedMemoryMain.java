@@ -5,7 +5,7 @@ import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.Candidate;
 import org.winnow.pipeline.CandidateSource;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -75,8 +75,7 @@ public final class BoundedMemoryMain {
 
                     @Override
                     public void accept(Candidate c) throws InterruptedException {
-                        ctx.forward(Scored.of(c, new ExactInvariants(3, 0, 12, 16, 1), new Estimate(1, 1, 1, ""), 0,
-                                Reason.KEPT_IN_RANGE));
+                        ctx.forward(Scored.of(c, new ExactInvariants(3, 0, 12, 16, 1), Prediction.of(1, 1, 1, 0, ""), Reason.KEPT_IN_RANGE));
                     }
                 }, slowSink, s -> {});
         System.out.println("done " + r.source().candidates() + " " + r.maxCandidateDepth() + " " + r.maxScoredDepth() + " "

@@ -17,7 +17,7 @@ import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.Candidate;
 import org.winnow.pipeline.CandidateSource;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -72,7 +72,7 @@ class LocalPipelineTest {
                 Thread.sleep(1);
             }
             Reason r = c.seq() % 3 == 0 ? Reason.KEPT_IN_RANGE : Reason.EXACT_CHI_OUT_OF_RANGE;
-            ctx.forward(Scored.of(c, new ExactInvariants(3, 0, 2, 1, 1), new Estimate(1, 1.0, 1, ""), 0.5, r));
+            ctx.forward(Scored.of(c, new ExactInvariants(3, 0, 2, 1, 1), Prediction.of(1, 1.0, 1, 0.5, ""), r));
         }
     }
 

@@ -13,7 +13,7 @@ import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Candidate;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -56,8 +56,7 @@ class SnapshotTakerTest {
             Reason r = Reason.values()[random.nextInt(Reason.values().length)];
             // Exact bin edges and the two ends are drawn often on purpose: they are where off-by-one hides.
             double novelty = random.nextInt(4) == 0 ? random.nextInt(11) / 10.0 : random.nextDouble();
-            metrics.scored(Scored.of(new Candidate(QUINTIC, "k" + i, 0, i), new ExactInvariants(3, -200, 1, 1, 1),
-                    new Estimate(1, 1.0, 101, ""), novelty, r), 1000);
+            metrics.scored(Scored.of(new Candidate(QUINTIC, "k" + i, 0, i), new ExactInvariants(3, -200, 1, 1, 1), Prediction.of(1, 1.0, 101, novelty, ""), r), 1000);
             byReason.merge(r, 1L, Long::sum);
             // Brute force: the bin whose upper bound is the first one at or above the value.
             int bin = 0;

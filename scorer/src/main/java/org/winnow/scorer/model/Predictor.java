@@ -2,6 +2,7 @@ package org.winnow.scorer.model;
 
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.hodge.RefinedH11Estimator;
+import org.winnow.pipeline.Prediction;
 
 /**
  * Scores candidates against one {@link FrozenModel}: embed, find the nearest reference points, vote,
@@ -95,7 +96,10 @@ public final class Predictor {
         return a < b || (a == b && model.residual(c) < model.residual(over));
     }
 
-    /** Scores one candidate (see {@link #score}) and packs the result, with the derived Hodge numbers. */
+    /**
+     * Scores one candidate (see {@link #score}) and packs the result, with the derived Hodge numbers; the
+     * neighbour accessors then describe this candidate until the next call.
+     */
     public Prediction predict(Configuration config, long chi) {
         int h11 = score(config, chi);
         Integer h21 = null;
@@ -114,13 +118,20 @@ public final class Predictor {
                 h22 = 44 + 4 * h11 - 2 * tuple[1] + 4 * tuple[2];
             }
         }
+        // The vote share cannot leave [0, 1] (a partial sum of non-negative weights never exceeds the whole
+        // in floating point either); the clamp only guards the record's contract.
+        return new Prediction(h11, Math.min(1.0, Math.max(0.0, confidence)), h21, h31, h22, novelty,
+                model.reference().configs()[neighbours[0]]);
+    }
+
+    /** The h11 each voting neighbour stands for, nearest first, for the last scored candidate. */
+    public int[] neighbourH11() {
         int k = Math.min(model.calibration().k(), found);
         int[] votes = new int[k];
         for (int i = 0; i < k; i++) {
             votes[i] = estimate + model.residual(model.residualOf(neighbours[i]));
         }
-        return new Prediction(h11, confidence, h21, h31, h22, novelty, votes,
-                model.reference().configs()[neighbours[0]], distances[0]);
+        return votes;
     }
 
     /**
@@ -153,7 +164,7 @@ public final class Predictor {
      * The first-page h11 estimate of the last scored candidate (the prediction before correction); 0
      * for an unanchored model, which votes on h11 directly.
      */
-    public int estimate() {
+    public int firstPageEstimate() {
         return estimate;
     }
 

@@ -4,8 +4,9 @@ import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.List;
 import java.util.Map;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
+import org.winnow.pipeline.Keepable;
 import org.winnow.pipeline.Reason;
 
 /**
@@ -32,7 +33,7 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
 
     public KeepRules {
         ranges = List.copyOf(ranges);
-        Map<Invariant, RangeRule> seen = new EnumMap<>(Invariant.class);
+        Map<Keepable, RangeRule> seen = new EnumMap<>(Keepable.class);
         for (RangeRule r : ranges) {
             RangeRule before = seen.putIfAbsent(r.invariant(), r);
             if (before != null) {
@@ -57,8 +58,8 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
         return new KeepRules(ranges, minConfidence, noveltyGuard);
     }
 
-    /** The reason for the verdict on a candidate with these invariants, prediction and novelty. */
-    public Reason decide(ExactInvariants exact, Estimate estimate, double novelty) {
+    /** The reason for the verdict on a candidate with these invariants and this prediction (novelty included). */
+    public Reason decide(ExactInvariants exact, Prediction prediction) {
         for (RangeRule r : ranges) {
             if (r.invariant().exact() && !r.contains(exactValue(r.invariant(), exact))) {
                 return r.invariant().rejection();
@@ -70,7 +71,7 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
             if (r.invariant().exact()) {
                 continue;
             }
-            Integer value = predictedValue(r.invariant(), estimate);
+            Integer value = predictedValue(r.invariant(), prediction);
             if (value == null) {
                 undecided = true;
             } else if (!r.contains(value)) {
@@ -81,10 +82,10 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
         if (violated == null) {
             return undecided ? Reason.KEPT_UNDECIDED : Reason.KEPT_IN_RANGE;
         }
-        if (novelty >= noveltyGuard) {
+        if (prediction.novelty() >= noveltyGuard) {
             return Reason.KEPT_AS_NOVEL;
         }
-        if (estimate.confidence() < minConfidence) {
+        if (prediction.confidence() < minConfidence) {
             return Reason.KEPT_LOW_CONFIDENCE;
         }
         return violated.invariant().rejection();
@@ -101,7 +102,7 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
         return lines;
     }
 
-    static long exactValue(Invariant invariant, ExactInvariants e) {
+    static long exactValue(Keepable invariant, ExactInvariants e) {
         return switch (invariant) {
             case CHI -> e.chi();
             case ROWS -> e.rows();
@@ -112,7 +113,7 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
         };
     }
 
-    static Integer predictedValue(Invariant invariant, Estimate e) {
+    static Integer predictedValue(Keepable invariant, Prediction e) {
         return switch (invariant) {
             case H11 -> e.h11();
             case H21 -> e.h21();

@@ -1,13 +1,16 @@
 package org.winnow.scorer.rules;
 
+import java.util.Arrays;
 import java.util.Objects;
+import java.util.stream.Collectors;
+import org.winnow.pipeline.Keepable;
 
 /**
  * Keep only candidates whose invariant lies in {@code [lo, hi]}. Written {@code h11=4..6};
  * {@code chi=-60..0}; {@code h11=5} for a single value; {@code h11=4..} or {@code h11=..6} for one-sided
  * ranges.
  */
-public record RangeRule(Invariant invariant, long lo, long hi) {
+public record RangeRule(Keepable invariant, long lo, long hi) {
     public RangeRule {
         Objects.requireNonNull(invariant, "invariant");
         if (lo > hi) {
@@ -22,7 +25,10 @@ public record RangeRule(Invariant invariant, long lo, long hi) {
         if (eq < 0) {
             throw new RuleException(String.format("rule '%s': expected INVARIANT=LO..HI, such as h11=4..6", text));
         }
-        Invariant invariant = Invariant.ofLabel(text.substring(0, eq), text);
+        String label = text.substring(0, eq);
+        Keepable invariant = Keepable.ofLabel(label).orElseThrow(() -> new RuleException(String.format(
+                "rule '%s': unknown invariant '%s' (known: %s)", text, label.trim(),
+                Arrays.stream(Keepable.values()).map(Keepable::label).collect(Collectors.joining(", ")))));
         String range = text.substring(eq + 1).trim();
         int dots = range.indexOf("..");
         long lo;
@@ -60,7 +66,7 @@ public record RangeRule(Invariant invariant, long lo, long hi) {
         return text(invariant, lo, hi);
     }
 
-    private static String text(Invariant invariant, long lo, long hi) {
+    private static String text(Keepable invariant, long lo, long hi) {
         String l = lo == Long.MIN_VALUE ? "" : Long.toString(lo);
         String h = hi == Long.MAX_VALUE ? "" : Long.toString(hi);
         return invariant.label() + "=" + (lo == hi ? l : l + ".." + h);

@@ -3,7 +3,7 @@ package org.winnow.scorer.stage;
 import java.util.Objects;
 import org.winnow.pipeline.Candidate;
 import org.winnow.pipeline.ExactInvariants;
-import org.winnow.pipeline.Reason;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.Scored;
 import org.winnow.scorer.rules.KeepRules;
 
@@ -30,8 +30,7 @@ public final class CandidateScorer {
     /** The verdict on {@code candidate}, with everything it was based on. */
     public Scored score(Candidate candidate) {
         ExactInvariants exact = invariants.compute(candidate.config());
-        Predicted p = predictions.predict(candidate.config(), exact);
-        Reason reason = rules.decide(exact, p.estimate(), p.novelty());
-        return Scored.of(candidate, exact, p.estimate(), p.novelty(), reason);
+        Prediction p = predictions.predict(candidate.config(), exact);
+        return Scored.of(candidate, exact, p, rules.decide(exact, p));
     }
 }

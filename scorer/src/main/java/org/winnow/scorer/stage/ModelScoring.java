@@ -3,9 +3,8 @@ package org.winnow.scorer.stage;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.Objects;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.Prediction;
 import org.winnow.scorer.model.Predictor;
 
 /**
@@ -13,7 +12,7 @@ import org.winnow.scorer.model.Predictor;
  * model's per-thread {@link Predictor}.
  *
  * <p>A candidate of another dimension than the model's reference set is outside what the model knows:
- * its prediction is passed on, but with novelty 1 and no derived h21, so no rule can reject it on the
+ * its prediction is passed on, but with novelty 1 and no derived h21 (nor h31, h22), so no rule can reject it on the
  * model's word.
  */
 public final class ModelScoring implements ScoringFunctions {
@@ -39,10 +38,10 @@ public final class ModelScoring implements ScoringFunctions {
         int modelDim = model.dimension();
         return (config, exact) -> {
             Prediction p = predictor.predict(config, exact.chi());
-            boolean known = exact.dim() == modelDim;
-            double confidence = Math.min(1.0, Math.max(0.0, p.confidence()));
-            return new Predicted(new Estimate(p.h11(), confidence, known ? p.h21() : null, p.nearestReference()),
-                    known ? p.novelty() : 1.0);
+            if (exact.dim() == modelDim) {
+                return p;
+            }
+            return new Prediction(p.h11(), p.confidence(), null, null, null, 1.0, p.nearestReference());
         };
     }
 

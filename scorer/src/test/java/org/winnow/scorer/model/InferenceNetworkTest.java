@@ -15,6 +15,7 @@ import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.invariants.InvariantCalculator;
+import org.winnow.pipeline.Prediction;
 import org.winnow.scorer.model.synthetic.SyntheticScenario;
 
 /** The scoring forward pass against the training forward pass, {@link EmbeddingNetwork#forward}, as the oracle. */
@@ -114,8 +115,8 @@ class InferenceNetworkTest {
             for (int i = 0; i < k; i++) {
                 votes[i] = ws.h11Estimate + model.residual(model.residualOf(nb[i]));
             }
-            assertArrayEquals(votes, p.neighbourH11(), c::toString);
-            assertEquals(dist[0], p.nearestDistance(), 0.0, c::toString);
+            assertArrayEquals(votes, predictor.neighbourH11(), c::toString);
+            assertEquals(dist[0], predictor.nearestDistance(), 0.0, c::toString);
             assertEquals(model.reference().configs()[nb[0]], p.nearestReference(), c::toString);
             assertEquals(cal.novelty(dist[Math.min(cal.noveltyK(), found) - 1]), p.novelty(), 0.0, c::toString);
             assertEquals(oracleVote(model, ws, nb, dist, k), p.h11(), c::toString);

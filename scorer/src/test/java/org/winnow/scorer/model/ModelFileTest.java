@@ -12,6 +12,7 @@ import java.nio.file.Path;
 import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.winnow.pipeline.Prediction;
 import org.winnow.scorer.model.synthetic.SyntheticScenario;
 
 class ModelFileTest {
@@ -43,9 +44,9 @@ class ModelFileTest {
             assertEquals(pa.h11(), pb.h11());
             assertEquals(pa.confidence(), pb.confidence(), 0);
             assertEquals(pa.novelty(), pb.novelty(), 0);
-            assertEquals(pa.nearestDistance(), pb.nearestDistance(), 0);
+            assertEquals(a.nearestDistance(), b.nearestDistance(), 0);
             assertEquals(pa.nearestReference(), pb.nearestReference());
-            assertArrayEquals(pa.neighbourH11(), pb.neighbourH11());
+            assertArrayEquals(a.neighbourH11(), b.neighbourH11());
         }
         assertEquals(original.metadata(), loaded.metadata());
     }

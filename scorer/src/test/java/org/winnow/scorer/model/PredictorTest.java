@@ -6,6 +6,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
+import org.winnow.pipeline.Prediction;
 
 /** The vote, the derived Hodge numbers and the novelty direction, on hand-built models. */
 class PredictorTest {
@@ -27,13 +28,14 @@ class PredictorTest {
         // All-zero weights embed every candidate at 0; the reference points sit at 0, 0.5 and 2.
         FrozenModel m = model(new String[] {"4:5", "5:3,3", "1:2/3:4"}, new long[] {-200, -144, -168},
                 new int[][] {{1, 101}, {1, 73}, {2, 86}}, new double[] {0, 0.5, 2}, 3, 1);
-        Prediction p = m.newPredictor().predict(Configuration.parse("4:5"), -200);
+        Predictor predictor = m.newPredictor();
+        Prediction p = predictor.predict(Configuration.parse("4:5"), -200);
         assertEquals(1, p.h11());
         // chi = 2 (h11 - h21) for every three-fold ("All the Hodge numbers for all Calabi-Yau complete
         // intersections", Class. Quant. Grav. 6 (1989) 105): h21 = 1 + 100 = 101 for the quintic.
         assertEquals(101, p.h21());
         assertEquals("4:5", p.nearestReference());
-        assertEquals(0.0, p.nearestDistance(), 0);
+        assertEquals(0.0, predictor.nearestDistance(), 0);
         assertTrue(p.confidence() > 0.999, "an exact duplicate decides the vote: " + p.confidence());
         Prediction odd = m.newPredictor().predict(Configuration.parse("4:5"), -199);
         assertNull(odd.h21(), "an odd chi has no three-fold h21");

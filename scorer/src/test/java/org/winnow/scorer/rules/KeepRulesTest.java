@@ -7,8 +7,9 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
+import org.winnow.pipeline.Keepable;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Verdict;
 
@@ -17,11 +18,11 @@ class KeepRulesTest {
 
     @Test
     void rangesParseInEveryForm() {
-        assertEquals(new RangeRule(Invariant.H11, 4, 6), RangeRule.parse("h11=4..6"));
-        assertEquals(new RangeRule(Invariant.CHI, -60, 0), RangeRule.parse(" chi = -60 .. 0 "));
-        assertEquals(new RangeRule(Invariant.ROWS, 3, 3), RangeRule.parse("rows=3"));
-        assertEquals(new RangeRule(Invariant.COLS, 2, Long.MAX_VALUE), RangeRule.parse("cols=2.."));
-        assertEquals(new RangeRule(Invariant.H21, Long.MIN_VALUE, 50), RangeRule.parse("H21=..50"));
+        assertEquals(new RangeRule(Keepable.H11, 4, 6), RangeRule.parse("h11=4..6"));
+        assertEquals(new RangeRule(Keepable.CHI, -60, 0), RangeRule.parse(" chi = -60 .. 0 "));
+        assertEquals(new RangeRule(Keepable.ROWS, 3, 3), RangeRule.parse("rows=3"));
+        assertEquals(new RangeRule(Keepable.COLS, 2, Long.MAX_VALUE), RangeRule.parse("cols=2.."));
+        assertEquals(new RangeRule(Keepable.H21, Long.MIN_VALUE, 50), RangeRule.parse("H21=..50"));
         assertEquals("h11=4..6", RangeRule.parse("h11=4..6").toString());
         assertEquals("cols=2..", RangeRule.parse("cols=2..").toString());
         assertEquals("rows=3", RangeRule.parse("rows=3").toString());
@@ -51,28 +52,27 @@ class KeepRulesTest {
     void exactRangesRejectWhateverThePredictionSays() {
         KeepRules rules = KeepRules.of(List.of("h11=1..100", "chi=-100..0"), 0.9, 0.99);
         // Even a maximally novel, unconfident candidate is rejected on an exact invariant.
-        assertEquals(Reason.EXACT_CHI_OUT_OF_RANGE, rules.decide(EXACT, new Estimate(5, 0.1, 105, ""), 1.0));
+        assertEquals(Reason.EXACT_CHI_OUT_OF_RANGE, rules.decide(EXACT, Prediction.of(5, 0.1, 105, 1.0, "")));
         assertEquals(Reason.KEPT_IN_RANGE,
-                rules.decide(new ExactInvariants(3, -50, 1, 1, 1), new Estimate(5, 0.1, 30, ""), 1.0));
+                rules.decide(new ExactInvariants(3, -50, 1, 1, 1), Prediction.of(5, 0.1, 30, 1.0, "")));
     }
 
     @Test
     void aPredictionRejectsOnlyWhenConfidentAndFamiliar() {
         KeepRules rules = KeepRules.of(List.of("h11=4..6"), 0.9, 0.99);
-        Estimate out = new Estimate(9, 0.95, null, "");
-        assertEquals(Reason.PREDICTED_H11_OUT_OF_RANGE, rules.decide(EXACT, out, 0.5));
-        assertEquals(Reason.KEPT_AS_NOVEL, rules.decide(EXACT, out, 0.99));
-        assertEquals(Reason.KEPT_LOW_CONFIDENCE, rules.decide(EXACT, new Estimate(9, 0.89, null, ""), 0.5));
+        assertEquals(Reason.PREDICTED_H11_OUT_OF_RANGE, rules.decide(EXACT, Prediction.of(9, 0.95, null, 0.5, "")));
+        assertEquals(Reason.KEPT_AS_NOVEL, rules.decide(EXACT, Prediction.of(9, 0.95, null, 0.99, "")));
+        assertEquals(Reason.KEPT_LOW_CONFIDENCE, rules.decide(EXACT, Prediction.of(9, 0.89, null, 0.5, "")));
         // At exactly the threshold the prediction counts as confident.
-        assertEquals(Reason.PREDICTED_H11_OUT_OF_RANGE, rules.decide(EXACT, new Estimate(9, 0.9, null, ""), 0.5));
-        assertEquals(Reason.KEPT_IN_RANGE, rules.decide(EXACT, new Estimate(5, 0.95, null, ""), 0.5));
+        assertEquals(Reason.PREDICTED_H11_OUT_OF_RANGE, rules.decide(EXACT, Prediction.of(9, 0.9, null, 0.5, "")));
+        assertEquals(Reason.KEPT_IN_RANGE, rules.decide(EXACT, Prediction.of(5, 0.95, null, 0.5, "")));
     }
 
     @Test
     void anUndeterminedPredictionNeverRejects() {
         KeepRules rules = KeepRules.of(List.of("h21=10..20"), 0.5, 0.99);
-        assertEquals(Reason.KEPT_UNDECIDED, rules.decide(new ExactInvariants(4, 0, 1, 1, 1), new Estimate(5, 1.0, null, ""), 0));
-        assertEquals(Reason.PREDICTED_H21_OUT_OF_RANGE, rules.decide(EXACT, new Estimate(5, 1.0, 105, ""), 0));
+        assertEquals(Reason.KEPT_UNDECIDED, rules.decide(new ExactInvariants(4, 0, 1, 1, 1), Prediction.of(5, 1.0, null, 0, "")));
+        assertEquals(Reason.PREDICTED_H21_OUT_OF_RANGE, rules.decide(EXACT, Prediction.of(5, 1.0, 105, 0, "")));
     }
 
     /** The decision against a direct reading of the rule text, on seeded random inputs. */
@@ -87,7 +87,7 @@ class KeepRulesTest {
             Integer h21 = rnd.nextInt(4) == 0 ? null : h11 - (int) (chi / 2);
             double conf = rnd.nextInt(11) / 10.0;
             double nov = rnd.nextInt(101) / 100.0;
-            Reason r = rules.decide(new ExactInvariants(3, chi, rows, 2, 1), new Estimate(h11, conf, h21, ""), nov);
+            Reason r = rules.decide(new ExactInvariants(3, chi, rows, 2, 1), Prediction.of(h11, conf, h21, nov, ""));
             boolean exactOk = chi >= -120 && chi <= -20 && rows <= 3;
             boolean predictedOut = h11 < 3 || h11 > 7 || (h21 != null && (h21 < 20 || h21 > 60));
             boolean mayReject = conf >= 0.8 && nov < 0.95;

@@ -10,7 +10,7 @@ import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Candidate;
-import org.winnow.pipeline.Estimate;
+import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -30,8 +30,8 @@ class ScorerStageTest {
 
             @Override
             public PredictionFunction newPredictions() {
-                return (c, exact) -> new Predicted(new Estimate(c.rows(), confidence,
-                        exact.dim() == 3 ? c.rows() - (int) (exact.chi() / 2) : null, "4:5"), novelty);
+                return (c, exact) -> Prediction.of(c.rows(), confidence,
+                        exact.dim() == 3 ? c.rows() - (int) (exact.chi() / 2) : null, novelty, "4:5");
             }
 
             @Override
@@ -92,7 +92,7 @@ class ScorerStageTest {
         assertEquals(1, madeOn.size());
         assertEquals(1.0, reg.get(ScorerMetrics.VERDICTS).tag(ScorerMetrics.TAG_REASON, "kept-in-range").counter().count());
         assertEquals(3, reg.get(ScorerMetrics.LATENCY).timer().count());
-        assertEquals(Scored.of(out.get(1).candidate(), out.get(1).invariants(), out.get(1).estimate(), 0.2,
+        assertEquals(Scored.of(out.get(1).candidate(), out.get(1).invariants(), out.get(1).prediction(),
                 Reason.KEPT_IN_RANGE), CandidateScorer.of(fake(0.95, 0.2, new ArrayList<>()), rules)
                 .score(out.get(1).candidate()));
     }
