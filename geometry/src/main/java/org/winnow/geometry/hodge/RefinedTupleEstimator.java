@@ -1,0 +1,218 @@
+package org.winnow.geometry.hodge;
+
+import java.time.Duration;
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.concurrent.ExecutionException;
+import java.util.concurrent.ExecutorService;
+import java.util.concurrent.Executors;
+import java.util.concurrent.Future;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.TimeoutException;
+import java.util.function.LongSupplier;
+import org.winnow.geometry.Checks;
+import org.winnow.geometry.Configuration;
+import org.winnow.geometry.cohomology.Interval;
+import org.winnow.geometry.invariants.InvariantCalculator;
+
+/**
+ * The Hodge tuple of a Calabi-Yau three-fold or four-fold, every value with its {@link Basis}. Sources,
+ * in order: the Koszul first pages ({@link FirstPageTuple}: proved where they are settled and the
+ * Jacobian ranks are forced, proved intervals elsewhere); for every value still not proved, the Hodge
+ * engine run without its exact backend (Koszul dimensions, d1 and graded Jacobian ranks, so it stays
+ * cheap), whose proved intervals are intersected with the first page's; what is still open keeps the
+ * first-page guess, clamped into its proved interval (BOUNDED) or unproved (ESTIMATED). A value is
+ * PROVED only when a proof pins it; a BOUNDED interval is always proved.
+ *
+ * <p>{@link #prove} is the opt-in proof step: the engine with its exact backend, within a time budget.
+ *
+ * <p>Block-diagonal matrices (products) are never proved here: their values are first-page guesses.
+ *
+ * <p>NOT thread-safe (it owns a first-page reader, an invariant workspace and engines): one per thread.
+ */
+public final class RefinedTupleEstimator {
+    /** Engine answers kept for configurations seen again (training encodes each example many times). */
+    private static final int REMEMBERED = 4096;
+
+    private final FirstPageTuple firstPage = new FirstPageTuple();
+    private final InvariantCalculator invariants = new InvariantCalculator();
+    private final Map<Configuration, HodgeResult> remembered = new LinkedHashMap<>(64, 0.75f, true) {
+        @Override
+        protected boolean removeEldestEntry(Map.Entry<Configuration, HodgeResult> eldest) {
+            return size() > REMEMBERED;
+        }
+    };
+    private final LongSupplier nanoClock;
+    private HodgeEngine cheapEngine;
+    private ExecutorService prover;
+    private boolean lastProofTimedOut;
+
+    /** An estimator whose engines (made on first need) read time from {@code nanoClock}. */
+    public RefinedTupleEstimator(LongSupplier nanoClock) {
+        this.nanoClock = nanoClock;
+    }
+
+    /** An estimator on the system clock. */
+    public RefinedTupleEstimator() {
+        this(System::nanoTime);
+    }
+
+    /**
+     * The tuple of a Calabi-Yau configuration of dimension 3 or 4.
+     *
+     * @throws IllegalArgumentException if {@code c} is not Calabi-Yau or not of dimension 3 or 4
+     */
+    public TupleEstimate estimate(Configuration c) {
+        requireSupported(c);
+        return estimate(c, invariants.chi(c));
+    }
+
+    /** As {@link #estimate(Configuration)} with the Euler characteristic already known (it must be exact). */
+    public TupleEstimate estimate(Configuration c, long chi) {
+        requireSupported(c);
+        firstPage.compute(c, chi);
+        if (!firstPage.applies()) {
+            return guesses(c.dimension(), firstPage.blocks() > 1, firstPage.blocks() > 1 ? "product" : "estimate");
+        }
+        Interval[] pages = {firstPage.h11(), firstPage.h21(), firstPage.h31(), firstPage.h22()};
+        if (allExact(pages, c.dimension())) {
+            return assemble(c.dimension(), pages, "first page");
+        }
+        HodgeResult r = remembered.get(c);
+        if (r == null) {
+            r = cheapEngine().compute(c);
+            remembered.put(c, r);
+        }
+        return combine(c.dimension(), chi, pages, r);
+    }
+
+    /**
+     * The opt-in proof step: the estimate, and where it is not all proved, the Hodge engine with its
+     * exact backend (the transferred Koszul complex), stopped after {@code budget}. Returns what is then
+     * proved; when the budget ran out, the cheap estimate with "proof out of time" in its method, and
+     * {@link #lastProofTimedOut()} is true.
+     */
+    public TupleEstimate prove(Configuration c, Duration budget) {
+        Checks.requireArgument(!budget.isNegative() && !budget.isZero(), "the proof budget must be positive: %s", budget);
+        TupleEstimate cheap = estimate(c);
+        lastProofTimedOut = false;
+        if (cheap.allProved() || cheap.product()) {
+            return cheap;
+        }
+        long chi = invariants.chi(c);
+        Interval[] pages = {firstPage.h11(), firstPage.h21(), firstPage.h31(), firstPage.h22()};
+        Future<HodgeResult> job = prover().submit(() -> new HodgeEngine(HodgeEngine.DEFAULT_SEEDS,
+                new TransferredBackend(), nanoClock).compute(c));
+        HodgeResult exact;
+        try {
+            exact = job.get(budget.toNanos(), TimeUnit.NANOSECONDS);
+        } catch (TimeoutException e) {
+            job.cancel(true);
+            // The engine does not poll for interruption: a fresh worker keeps later budgets honest.
+            prover.shutdownNow();
+            prover = null;
+            lastProofTimedOut = true;
+            return new TupleEstimate(cheap.dim(), cheap.h11(), cheap.h21(), cheap.h31(), cheap.h22(), false,
+                    cheap.method() + "; proof out of time after " + budget.toMillis() + " ms");
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            job.cancel(true);
+            return cheap;
+        } catch (ExecutionException e) {
+            throw new IllegalStateException("the exact engine failed on " + c.toText(), e.getCause());
+        }
+        TupleEstimate proved = combine(c.dimension(), chi, pages, exact);
+        return new TupleEstimate(proved.dim(), proved.h11(), proved.h21(), proved.h31(), proved.h22(), false,
+                proved.method().replace("engine", "exact engine"));
+    }
+
+    /** True iff the last {@link #prove} ran out of its budget. */
+    public boolean lastProofTimedOut() {
+        return lastProofTimedOut;
+    }
+
+    /** Stops the proof worker, if one was started. */
+    public void close() {
+        if (prover != null) {
+            prover.shutdownNow();
+            prover = null;
+        }
+    }
+
+    private ExecutorService prover() {
+        if (prover == null) {
+            prover = Executors.newSingleThreadExecutor(task -> {
+                Thread t = new Thread(task, "winnow-tuple-proof");
+                t.setDaemon(true);
+                return t;
+            });
+        }
+        return prover;
+    }
+
+    private HodgeEngine cheapEngine() {
+        if (cheapEngine == null) {
+            cheapEngine = new HodgeEngine(HodgeEngine.DEFAULT_SEEDS, null, nanoClock);
+        }
+        return cheapEngine;
+    }
+
+    private static void requireSupported(Configuration c) {
+        Checks.requireArgument(c.isCalabiYau(), "not a Calabi-Yau configuration: %s", c.toText());
+        Checks.requireArgument(c.dimension() == 3 || c.dimension() == 4,
+                "the tuple is estimated for three-folds and four-folds: %s has dimension %d", c.toText(), c.dimension());
+    }
+
+    /** Intersects the first page's enclosures with the engine's and closes them under the identities. */
+    private TupleEstimate combine(int d, long chi, Interval[] pages, HodgeResult r) {
+        if (r.status() == Status.REFUSED) {
+            return assemble(d, pages, "first page (engine refused: " + r.reason() + ")");
+        }
+        Interval[] closed;
+        try {
+            closed = FirstPageTuple.close(d, chi, meet(pages[0], r.h11()), meet(pages[1], r.h21()),
+                    d == 4 ? meet(pages[2], r.h31()) : null);
+            if (d == 4) {
+                closed[3] = meet(closed[3], r.h22());
+            }
+        } catch (IllegalStateException e) {
+            // The engine and the first page disagree: one of them is wrong, so neither is trusted.
+            System.getLogger(RefinedTupleEstimator.class.getName()).log(System.Logger.Level.WARNING,
+                    "first page and engine contradict each other on {0}: {1}", r.input().toText(), e.getMessage());
+            return guesses(d, false, "estimate (first page and engine contradict)");
+        }
+        return assemble(d, closed, "first page + engine (" + r.method().label() + ")");
+    }
+
+    private static Interval meet(Interval a, Interval b) {
+        return a == null ? b : b == null ? a : a.intersect(b);
+    }
+
+    private static boolean allExact(Interval[] v, int d) {
+        for (int i = 0; i < (d == 3 ? 2 : 4); i++) {
+            if (v[i] == null || !v[i].isExact()) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private TupleEstimate assemble(int d, Interval[] v, String method) {
+        KnownValue h11 = known(v[0], firstPage.guess11());
+        KnownValue h21 = known(v[1], firstPage.guess21());
+        KnownValue h31 = d == 4 ? known(v[2], firstPage.guess31()) : null;
+        KnownValue h22 = d == 4 ? known(v[3], firstPage.guess22()) : null;
+        boolean anyProof = v[0] != null || v[1] != null || v[2] != null || v[3] != null;
+        return new TupleEstimate(d, h11, h21, h31, h22, false, anyProof ? method : "estimate");
+    }
+
+    private static KnownValue known(Interval proved, long guess) {
+        return proved == null ? KnownValue.estimated(guess) : KnownValue.within(proved, guess);
+    }
+
+    private TupleEstimate guesses(int d, boolean product, String method) {
+        return new TupleEstimate(d, KnownValue.estimated(firstPage.guess11()), KnownValue.estimated(firstPage.guess21()),
+                d == 4 ? KnownValue.estimated(firstPage.guess31()) : null,
+                d == 4 ? KnownValue.estimated(firstPage.guess22()) : null, product, method);
+    }
+}
