@@ -102,13 +102,13 @@ public final class RefinedTupleEstimator {
         long chi = invariants.chi(c);
         Interval[] pages = {firstPage.h11(), firstPage.h21(), firstPage.h31(), firstPage.h22()};
         Future<HodgeResult> job = prover().submit(() -> new HodgeEngine(HodgeEngine.DEFAULT_SEEDS,
-                new TransferredBackend(), nanoClock).compute(c));
+                new Interruptible(new TransferredBackend()), nanoClock).compute(c));
         HodgeResult exact;
         try {
             exact = job.get(budget.toNanos(), TimeUnit.NANOSECONDS);
         } catch (TimeoutException e) {
+            // The worker stops at its next exact-backend call; a fresh worker keeps the next budget whole.
             job.cancel(true);
-            // The engine does not poll for interruption: a fresh worker keeps later budgets honest.
             prover.shutdownNow();
             prover = null;
             lastProofTimedOut = true;
@@ -119,6 +119,10 @@ public final class RefinedTupleEstimator {
             job.cancel(true);
             return cheap;
         } catch (ExecutionException e) {
+            if (e.getCause() instanceof Stopped) {
+                lastProofTimedOut = true;
+                return cheap;
+            }
             throw new IllegalStateException("the exact engine failed on " + c.toText(), e.getCause());
         }
         TupleEstimate proved = combine(c.dimension(), chi, pages, exact);
@@ -136,6 +140,41 @@ public final class RefinedTupleEstimator {
         if (prover != null) {
             prover.shutdownNow();
             prover = null;
+        }
+    }
+
+    /** Thrown inside the proof worker when it is interrupted; not caught by the engine. */
+    private static final class Stopped extends RuntimeException {
+        Stopped() {
+            super("proof step interrupted", null, false, false);
+        }
+    }
+
+    /**
+     * The exact backend, checking for interruption around every call: the engine polls nothing itself,
+     * and one backend call is its longest step (at most about a second on the labelled four-folds).
+     */
+    private record Interruptible(ExactBackend inner) implements ExactBackend {
+        @Override
+        public int[] cohomology(org.winnow.geometry.cohomology.DefiningPolynomials f, int[] k) {
+            check();
+            int[] h = inner.cohomology(f, k);
+            check();
+            return h;
+        }
+
+        @Override
+        public int jacobianRank(org.winnow.geometry.cohomology.DefiningPolynomials f, int t) {
+            check();
+            int r = inner.jacobianRank(f, t);
+            check();
+            return r;
+        }
+
+        private static void check() {
+            if (Thread.currentThread().isInterrupted()) {
+                throw new Stopped();
+            }
         }
     }
 

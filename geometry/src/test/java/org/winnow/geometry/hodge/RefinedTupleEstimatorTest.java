@@ -207,6 +207,24 @@ class RefinedTupleEstimatorTest {
     }
 
     @Test
+    void aProofStepOutOfTimeSaysSoAndKeepsTheCheapBasis() {
+        Configuration c = Configuration.parse("2:2,1,0,0,0/2:0,1,1,1,0/1:0,0,2,0,0/1:0,0,2,0,0/1:0,0,0,1,1/1:0,0,0,0,2");
+        RefinedTupleEstimator tuple = new RefinedTupleEstimator();
+        TupleEstimate cheap = tuple.estimate(c);
+        assertFalse(cheap.allProved(), cheap.toString());
+        TupleEstimate late = tuple.prove(c, java.time.Duration.ofNanos(1));
+        assertTrue(tuple.lastProofTimedOut());
+        assertTrue(late.method().contains("proof out of time"), late.method());
+        assertEquals(cheap.h11(), late.h11());
+        assertEquals(cheap.h21(), late.h21());
+        // The next proof gets a fresh worker and its whole budget.
+        TupleEstimate proved = tuple.prove(c, java.time.Duration.ofSeconds(60));
+        assertFalse(tuple.lastProofTimedOut());
+        assertTrue(proved.allProved(), proved.toString());
+        tuple.close();
+    }
+
+    @Test
     void rowAndColumnPermutationsGiveTheSameTuple() {
         SplittableRandom rng = new SplittableRandom(61);
         RandomConfigurations gen = new RandomConfigurations(rng);
