@@ -11,14 +11,18 @@ import java.util.ArrayList;
 import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.SplittableRandom;
 import java.util.TreeMap;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.hodge.Basis;
+import org.winnow.geometry.hodge.HodgeEngine;
+import org.winnow.geometry.hodge.HodgeResult;
 import org.winnow.geometry.hodge.KnownValue;
 import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.geometry.hodge.RefinedTupleEstimator;
 import org.winnow.geometry.hodge.TupleEstimate;
 import org.winnow.geometry.invariants.InvariantCalculator;
+import org.winnow.geometry.invariants.RandomConfigurations;
 
 /**
  * How the Hodge tuple of a candidate file is known: per value (h11, h21, h31, h22) the counts of
@@ -29,7 +33,12 @@ import org.winnow.geometry.invariants.InvariantCalculator;
  * estimate (chi given, and chi computed) against the h11-only anchor ({@link RefinedH11Estimator}),
  * interleaved in R rounds with fresh estimators each round (so every round pays its engine calls).
  *
+ * <p>With {@code --random N} it draws N matrices from the project's {@link RandomConfigurations}
+ * ({@code --dim}, {@code --max-rows}, {@code --max-n}, {@code --seed}; they include hyperplane columns,
+ * blocks and redundant descriptions the enumeration drops) and labels them with the full engine here.
+ *
  * <p>{@code java -cp bench/target/benchmarks.jar org.winnow.bench.TupleSurvey --input F [--labels L.jsonl] [--time 5]}
+ * or {@code ... TupleSurvey --random 2000 --dim 3 --max-rows 6 --max-n 3 --seed 1}
  */
 public final class TupleSurvey {
     private static final String[] NAMES = {"h11", "h21", "h31", "h22"};
@@ -40,45 +49,83 @@ public final class TupleSurvey {
         Path input = null;
         Path labels = null;
         int rounds = 0;
+        int random = 0;
+        int dim = 3;
+        int maxRows = 6;
+        int maxN = 3;
+        long seed = 1;
         for (int i = 0; i < args.length; i++) {
             switch (args[i]) {
                 case "--input" -> input = Path.of(args[++i]);
                 case "--labels" -> labels = Path.of(args[++i]);
                 case "--time" -> rounds = Integer.parseInt(args[++i]);
+                case "--random" -> random = Integer.parseInt(args[++i]);
+                case "--dim" -> dim = Integer.parseInt(args[++i]);
+                case "--max-rows" -> maxRows = Integer.parseInt(args[++i]);
+                case "--max-n" -> maxN = Integer.parseInt(args[++i]);
+                case "--seed" -> seed = Long.parseLong(args[++i]);
                 default -> throw new IllegalArgumentException("unknown option " + args[i]
-                        + " (use --input F [--labels L.jsonl] [--time ROUNDS])");
+                        + " (use --input F [--labels L.jsonl] [--time ROUNDS], or --random N [--dim D] [--max-rows R]"
+                        + " [--max-n N] [--seed S])");
             }
         }
-        if (input == null) {
-            throw new IllegalArgumentException("--input is required");
+        if ((input == null) == (random == 0)) {
+            throw new IllegalArgumentException("give exactly one of --input and --random");
         }
         List<Configuration> configs = new ArrayList<>();
-        for (String line : Files.readAllLines(input)) {
-            String text = line.split("\t", 2)[0].trim();
-            if (!text.isEmpty() && !text.startsWith("#")) {
-                configs.add(Configuration.parse(text));
+        Map<String, long[]> truth;
+        if (input != null) {
+            for (String line : Files.readAllLines(input)) {
+                String text = line.split("\t", 2)[0].trim();
+                if (!text.isEmpty() && !text.startsWith("#")) {
+                    configs.add(Configuration.parse(text));
+                }
             }
+            truth = labels == null ? Map.of() : readLabels(labels);
+        } else {
+            // Random matrices of the project's generator, labelled here by the full engine (exact backend).
+            RandomConfigurations gen = new RandomConfigurations(new SplittableRandom(seed));
+            HodgeEngine full = HodgeEngine.standard();
+            truth = new HashMap<>();
+            while (configs.size() < random) {
+                Configuration c = gen.calabiYau(dim, maxRows, maxN);
+                configs.add(c);
+                HodgeResult r = full.compute(c);
+                if (r.isExact()) {
+                    truth.put(c.toText(), new long[] {r.h11().value(), r.h21().value(),
+                            r.h31() == null ? -1 : r.h31().value(), r.h22() == null ? -1 : r.h22().value()});
+                }
+            }
+            System.out.printf("random %d-folds: %d drawn (seed %d, up to %d rows, n up to %d), %d exact by the full engine%n",
+                    dim, configs.size(), seed, maxRows, maxN, truth.size());
         }
-        Map<String, JsonNode> truth = labels == null ? Map.of() : readLabels(labels);
         survey(configs, truth);
         if (rounds > 0) {
             time(configs, rounds);
         }
     }
 
-    private static Map<String, JsonNode> readLabels(Path labels) throws IOException {
+    /** The exact results of a {@code winnow hodge --json} file: {h11, h21, h31, h22} by configuration. */
+    private static Map<String, long[]> readLabels(Path labels) throws IOException {
         ObjectMapper json = new ObjectMapper();
-        Map<String, JsonNode> out = new HashMap<>();
+        Map<String, long[]> out = new HashMap<>();
         for (String line : Files.readAllLines(labels)) {
             if (!line.isBlank()) {
                 JsonNode n = json.readTree(line);
-                out.put(Configuration.parse(n.get("input").asText()).toText(), n);
+                if ("exact".equals(n.get("status").asText())) {
+                    long[] v = new long[4];
+                    for (int i = 0; i < 4; i++) {
+                        JsonNode x = n.get(NAMES[i]);
+                        v[i] = x == null || x.isNull() ? -1 : x.asLong();
+                    }
+                    out.put(Configuration.parse(n.get("input").asText()).toText(), v);
+                }
             }
         }
         return out;
     }
 
-    private static void survey(List<Configuration> configs, Map<String, JsonNode> truth) {
+    private static void survey(List<Configuration> configs, Map<String, long[]> truth) {
         RefinedTupleEstimator tuple = new RefinedTupleEstimator();
         InvariantCalculator invariants = new InvariantCalculator();
         long[][] basis = new long[4][3];
@@ -100,8 +147,8 @@ public final class TupleSurvey {
             String method = e.method().replaceAll("\\(engine refused: .*\\)", "(engine refused)");
             methods.merge(method, 1L, Long::sum);
             KnownValue[] v = {e.h11(), e.h21(), e.h31(), e.h22()};
-            JsonNode label = truth.get(c.toText());
-            boolean exact = label != null && "exact".equals(label.get("status").asText());
+            long[] label = truth.get(c.toText());
+            boolean exact = label != null;
             boolean tupleRight = exact;
             for (int i = 0; i < 4; i++) {
                 if (v[i] == null) {
@@ -111,7 +158,7 @@ public final class TupleSurvey {
                 if (!exact) {
                     continue;
                 }
-                long t = label.get(NAMES[i]).asLong();
+                long t = label[i];
                 labelled[i]++;
                 boolean ok = v[i].value() == t;
                 right[i] += ok ? 1 : 0;
