@@ -26,7 +26,9 @@ import org.winnow.geometry.invariants.InvariantCalculator;
  *
  * <p>{@link #prove} is the opt-in proof step: the engine with its exact backend, within a time budget.
  *
- * <p>Block-diagonal matrices (products) are never proved here: their values are first-page guesses.
+ * <p>Block-diagonal matrices (products): the engine computes every block and combines them by the
+ * Kunneth formula; a product's values are proved only when every block is decided, else they are
+ * first-page guesses (ESTIMATED).
  *
  * <p>NOT thread-safe (it owns a first-page reader, an invariant workspace and engines): one per thread.
  */
@@ -71,19 +73,17 @@ public final class RefinedTupleEstimator {
     public TupleEstimate estimate(Configuration c, long chi) {
         requireSupported(c);
         firstPage.compute(c, chi);
+        if (firstPage.blocks() > 1) {
+            return product(c);
+        }
         if (!firstPage.applies()) {
-            return guesses(c.dimension(), firstPage.blocks() > 1, firstPage.blocks() > 1 ? "product" : "estimate");
+            return guesses(c.dimension(), false, "estimate");
         }
         Interval[] pages = {firstPage.h11(), firstPage.h21(), firstPage.h31(), firstPage.h22()};
         if (allExact(pages, c.dimension())) {
             return assemble(c.dimension(), chi, pages, "first page");
         }
-        HodgeResult r = remembered.get(c);
-        if (r == null) {
-            r = cheapEngine().compute(c);
-            remembered.put(c, r);
-        }
-        return combine(c.dimension(), chi, pages, r);
+        return combine(c.dimension(), chi, pages, engineAnswer(c));
     }
 
     /**
@@ -96,7 +96,7 @@ public final class RefinedTupleEstimator {
         Checks.requireArgument(!budget.isNegative() && !budget.isZero(), "the proof budget must be positive: %s", budget);
         TupleEstimate cheap = estimate(c);
         lastProofTimedOut = false;
-        if (cheap.allProved() || cheap.product()) {
+        if (cheap.allProved()) {
             return cheap;
         }
         long chi = invariants.chi(c);
@@ -112,7 +112,7 @@ public final class RefinedTupleEstimator {
             prover.shutdownNow();
             prover = null;
             lastProofTimedOut = true;
-            return new TupleEstimate(cheap.dim(), cheap.h11(), cheap.h21(), cheap.h31(), cheap.h22(), false,
+            return new TupleEstimate(cheap.dim(), cheap.h11(), cheap.h21(), cheap.h31(), cheap.h22(), cheap.product(),
                     cheap.method() + "; proof out of time after " + budget.toMillis() + " ms");
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
@@ -125,8 +125,8 @@ public final class RefinedTupleEstimator {
             }
             throw new IllegalStateException("the exact engine failed on " + c.toText(), e.getCause());
         }
-        TupleEstimate proved = combine(c.dimension(), chi, pages, exact);
-        return new TupleEstimate(proved.dim(), proved.h11(), proved.h21(), proved.h31(), proved.h22(), false,
+        TupleEstimate proved = cheap.product() ? product(c.dimension(), exact) : combine(c.dimension(), chi, pages, exact);
+        return new TupleEstimate(proved.dim(), proved.h11(), proved.h21(), proved.h31(), proved.h22(), proved.product(),
                 proved.method().replace("engine", "exact engine"));
     }
 
@@ -200,6 +200,33 @@ public final class RefinedTupleEstimator {
         Checks.requireArgument(c.isCalabiYau(), "not a Calabi-Yau configuration: %s", c.toText());
         Checks.requireArgument(c.dimension() == 3 || c.dimension() == 4,
                 "the tuple is estimated for three-folds and four-folds: %s has dimension %d", c.toText(), c.dimension());
+    }
+
+    /**
+     * A block-diagonal matrix: the identities of full holonomy do not hold, so the first page proves
+     * nothing; the engine computes each block and combines their diamonds by the Kunneth formula, which is
+     * exact only when every block is (then every value is proved), else the values are first-page guesses.
+     */
+    private TupleEstimate product(Configuration c) {
+        return product(c.dimension(), engineAnswer(c));
+    }
+
+    private TupleEstimate product(int d, HodgeResult r) {
+        if (!r.isExact()) {
+            return guesses(d, true, "product (" + (r.status() == Status.REFUSED ? "refused: " : "bounded: ") + r.reason() + ")");
+        }
+        return new TupleEstimate(d, KnownValue.proved(r.h11().value()), KnownValue.proved(r.h21().value()),
+                d == 4 ? KnownValue.proved(r.h31().value()) : null, d == 4 ? KnownValue.proved(r.h22().value()) : null,
+                true, "product (engine, Kunneth)");
+    }
+
+    private HodgeResult engineAnswer(Configuration c) {
+        HodgeResult r = remembered.get(c);
+        if (r == null) {
+            r = cheapEngine().compute(c);
+            remembered.put(c, r);
+        }
+        return r;
     }
 
     /** Intersects the first page's enclosures with the engine's and closes them under the identities. */
