@@ -21,10 +21,12 @@ import org.winnow.pipeline.BadInput;
  * @param timings       wall-clock facts
  * @param survivorFiles committed survivor files, in order
  * @param rejectFiles   committed reject files, in order (empty unless asked for)
+ * @param sealedParts   length, lines and SHA-256 of every file in {@code survivorFiles} and
+ *                      {@code rejectFiles}, survivors first; what a reader checks the files against
  */
 public record Manifest(int formatVersion, String runId, boolean complete, String source, Object bounds,
         List<String> rules, String modelChecksum, Counts counts, List<BadInput> badInputLines, Timings timings,
-        List<String> survivorFiles, List<String> rejectFiles) {
+        List<String> survivorFiles, List<String> rejectFiles, List<SealedPart> sealedParts) {
 
     /**
      * Counts. They reconcile: {@code enumerated = duplicates + candidates}, {@code scored = rejected + kept},
@@ -55,8 +57,65 @@ public record Manifest(int formatVersion, String runId, boolean complete, String
     public record Timings(Instant startedAt, Instant updatedAt, double elapsedSeconds, int sessions,
             double candidatesPerSecond) {}
 
-    /** Reads a manifest. */
+    /**
+     * Reads a manifest and checks its structure ({@link #check}).
+     *
+     * @throws java.io.IOException with a one-line message naming the file when it cannot be read, is not
+     *     a manifest of this format, or a field is missing or out of range
+     */
     public static Manifest read(java.nio.file.Path file) throws java.io.IOException {
-        return ScanFiles.JSON.readValue(file.toFile(), Manifest.class);
+        Manifest m = ScanFiles.readJson(file, Manifest.class, "manifest");
+        m.check(file);
+        return m;
+    }
+
+    /**
+     * Checks the fields a reader relies on: present, in range, and the counts reconciling as documented
+     * in {@link Counts}; every listed file has its record in {@code sealedParts}.
+     */
+    public void check(java.nio.file.Path file) throws ScanDamagedException {
+        String at = file + ": ";
+        require(formatVersion == ScanFiles.FORMAT_VERSION,
+                at + "manifest format " + formatVersion + ", this version reads " + ScanFiles.FORMAT_VERSION);
+        require(runId != null && !runId.isBlank(), at + "runId is missing");
+        require(source != null, at + "source is missing");
+        require(rules != null && modelChecksum != null, at + "rules or modelChecksum is missing");
+        require(counts != null, at + "counts is missing");
+        require(counts.rejectedByReason() != null && counts.keptByReason() != null,
+                at + "counts.rejectedByReason or counts.keptByReason is missing");
+        require(counts.enumerated() >= 0 && counts.duplicates() >= 0 && counts.candidates() >= 0
+                && counts.badInput() >= 0 && counts.scored() >= 0 && counts.rejected() >= 0 && counts.kept() >= 0
+                && counts.survivorLines() >= 0, at + "a count is negative");
+        require(counts.scored() == counts.rejected() + counts.kept(), at + "counts.scored " + counts.scored()
+                + " is not rejected + kept = " + (counts.rejected() + counts.kept()));
+        require(counts.survivorLines() == counts.kept(), at + "counts.survivorLines " + counts.survivorLines()
+                + " differs from counts.kept " + counts.kept());
+        require(!complete || counts.scored() == counts.candidates(), at + "complete, but counts.scored "
+                + counts.scored() + " differs from counts.candidates " + counts.candidates());
+        require(timings != null, at + "timings is missing");
+        require(survivorFiles != null && rejectFiles != null && sealedParts != null,
+                at + "survivorFiles, rejectFiles or sealedParts is missing");
+        require(sealedParts.size() == survivorFiles.size() + rejectFiles.size(), at + "sealedParts has "
+                + sealedParts.size() + " records for " + (survivorFiles.size() + rejectFiles.size()) + " files");
+        long lines = 0;
+        for (int i = 0; i < sealedParts.size(); i++) {
+            SealedPart p = sealedParts.get(i);
+            String name = i < survivorFiles.size() ? survivorFiles.get(i) : rejectFiles.get(i - survivorFiles.size());
+            require(p != null && name != null && name.equals(p.name()) && p.bytes() > 0 && p.lines() > 0
+                    && Checkpoint.isSha256(p.sha256()), at + "sealedParts[" + i + "] is not a valid record of " + name);
+            require(!name.contains("/") && !name.contains("\\") && !name.startsWith("."),
+                    at + "a listed file name is not a plain name in the directory: " + name);
+            if (i < survivorFiles.size()) {
+                lines += p.lines();
+            }
+        }
+        require(!complete || lines == counts.survivorLines(), at + "complete, but its survivor files hold "
+                + lines + " lines and counts.survivorLines is " + counts.survivorLines());
+    }
+
+    private static void require(boolean ok, String message) throws ScanDamagedException {
+        if (!ok) {
+            throw new ScanDamagedException(message);
+        }
     }
 }

@@ -1,10 +1,21 @@
 package org.winnow.sink;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import java.security.MessageDigest;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
 import java.io.IOException;
 import java.nio.channels.FileChannel;
+import java.nio.file.AccessDeniedException;
 import java.nio.file.AtomicMoveNotSupportedException;
+import java.nio.file.DirectoryNotEmptyException;
+import java.nio.file.FileAlreadyExistsException;
+import java.nio.file.FileSystemException;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.NotDirectoryException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
@@ -14,7 +25,7 @@ import java.util.Locale;
 /** Names of the files in a scan directory, the JSON mapper, and the atomic-replace primitive. */
 public final class ScanFiles {
     /** Version of the survivors, rejects, checkpoint and manifest formats. */
-    public static final int FORMAT_VERSION = 1;
+    public static final int FORMAT_VERSION = 2;
     /** The manifest's file name. */
     public static final String MANIFEST = "manifest.json";
     /** The checkpoint's file name. */
@@ -26,9 +37,110 @@ public final class ScanFiles {
 
     static final ObjectMapper JSON = new ObjectMapper().findAndRegisterModules()
             .disable(SerializationFeature.WRITE_DATES_AS_TIMESTAMPS)
-            .enable(SerializationFeature.INDENT_OUTPUT);
+            .enable(SerializationFeature.INDENT_OUTPUT)
+            .enable(DeserializationFeature.FAIL_ON_NULL_FOR_PRIMITIVES)
+            .enable(DeserializationFeature.FAIL_ON_MISSING_CREATOR_PROPERTIES);
+
+    /** The field of {@code checkpoint.json} and {@code manifest.json} that holds their own digest. */
+    public static final String CHECKSUM_FIELD = "checksum";
+
+    private static final ObjectMapper COMPACT = JSON.copy().disable(SerializationFeature.INDENT_OUTPUT);
+
+    /** Hidden lock file that marks a directory in use by one process; see {@link DirectoryLock}. */
+    public static final String LOCK = ".winnow.lock";
 
     private ScanFiles() {}
+
+    /**
+     * Reads a JSON file written by the sink, turning every failure into one line that names the file:
+     * no such file, not a regular file, not JSON, {@code null}, a field missing or of the wrong type.
+     *
+     * @param what what the file should be, for the message ("checkpoint", "manifest")
+     */
+    static <T> T readJson(Path file, Class<T> type, String what) throws IOException {
+        if (!Files.isRegularFile(file)) {
+            throw new ScanDamagedException(file + ": " + (Files.exists(file) ? "not a regular file" : "missing")
+                    + ", expected the scan's " + what);
+        }
+        T value;
+        try {
+            JsonNode tree = JSON.readTree(file.toFile());
+            if (tree == null || !tree.isObject()) {
+                throw new ScanDamagedException(file + ": unreadable " + what + ": not a JSON object");
+            }
+            ObjectNode object = (ObjectNode) tree;
+            JsonNode recorded = object.remove(CHECKSUM_FIELD);
+            if (recorded == null || !recorded.isTextual()) {
+                throw new ScanDamagedException(file + ": unreadable " + what + ": no " + CHECKSUM_FIELD + " field");
+            }
+            if (!recorded.asText().equals(selfChecksum(object))) {
+                throw new ScanDamagedException(file + ": its content differs from its own " + CHECKSUM_FIELD
+                        + " (edited or damaged after it was written)");
+            }
+            value = JSON.treeToValue(object, type);
+        } catch (JsonProcessingException e) {
+            String where = e.getLocation() == null ? "" : " (line " + e.getLocation().getLineNr() + ")";
+            throw new ScanDamagedException(file + ": unreadable " + what + where + ": "
+                    + oneLine(e.getOriginalMessage()));
+        }
+        if (value == null) {
+            throw new ScanDamagedException(file + ": unreadable " + what + ": it holds null");
+        }
+        return value;
+    }
+
+    /**
+     * {@code value} as indented JSON with a {@value #CHECKSUM_FIELD} field: the SHA-256 of the compact
+     * form of every other field. A reader recomputes it, so an edit or a flipped byte that still parses
+     * is refused rather than believed (counts and part records are what a rerun and a report trust).
+     */
+    static byte[] toSealedJson(Object value) throws IOException {
+        ObjectNode tree = JSON.valueToTree(value);
+        tree.remove(CHECKSUM_FIELD);
+        tree.put(CHECKSUM_FIELD, selfChecksum(tree));
+        return JSON.writeValueAsBytes(tree);
+    }
+
+    private static String selfChecksum(ObjectNode withoutChecksum) throws JsonProcessingException {
+        MessageDigest d = PartCheck.sha256();
+        return PartCheck.hex(d.digest(COMPACT.writeValueAsBytes(withoutChecksum)));
+    }
+
+    /**
+     * What went wrong in one line, without repeating the path the exception names: the file-system
+     * exceptions of {@code java.nio.file} carry only the path as their message, which says nothing.
+     */
+    public static String describe(IOException e) {
+        if (e instanceof NoSuchFileException) {
+            return "no such file or directory";
+        }
+        if (e instanceof AccessDeniedException) {
+            return "permission denied";
+        }
+        if (e instanceof FileAlreadyExistsException) {
+            return "exists already and is in the way";
+        }
+        if (e instanceof NotDirectoryException) {
+            return "not a directory";
+        }
+        if (e instanceof DirectoryNotEmptyException) {
+            return "directory not empty";
+        }
+        if (e instanceof FileSystemException f && f.getReason() != null) {
+            return oneLine(f.getReason());
+        }
+        return oneLine(e.getMessage() == null ? e.getClass().getSimpleName() : e.getMessage());
+    }
+
+    /** The first line of {@code message}, at most 200 characters. */
+    static String oneLine(String message) {
+        String s = message == null ? "" : message.strip();
+        int nl = s.indexOf('\n');
+        if (nl >= 0) {
+            s = s.substring(0, nl);
+        }
+        return s.length() > 200 ? s.substring(0, 200) + "..." : s;
+    }
 
     /** The final name of part {@code part} of a series. */
     public static String committedName(String prefix, int part) {

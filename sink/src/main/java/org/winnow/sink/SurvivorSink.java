@@ -6,6 +6,8 @@ import java.nio.file.Path;
 import java.time.Clock;
 import java.time.Duration;
 import java.time.Instant;
+import java.nio.file.LinkOption;
+import java.util.ArrayList;
 import java.util.EnumMap;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -40,14 +42,16 @@ public final class SurvivorSink implements Stage<Scored, Void> {
     private final Map<Reason, Long> counts = new EnumMap<>(Reason.class);
     private final PartSeries survivors;
     private final PartSeries rejects;
+    private final DirectoryLock lock;
     private SinkMetrics metrics;
     private long nextSeq;
     private long sinceCheckpoint;
     private Instant lastCheckpoint;
 
     private SurvivorSink(Path dir, ScanInfo info, SinkOptions options, Clock clock, Supplier<SourceReport> source,
-            CrashHook hook, Checkpoint start) throws IOException {
+            CrashHook hook, Checkpoint start, DirectoryLock lock) throws IOException {
         this.dir = dir;
+        this.lock = lock;
         this.info = info;
         this.options = options;
         this.clock = clock;
@@ -64,9 +68,14 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         this.survivors = new PartSeries(dir, ScanFiles.SURVIVORS, options.linesPerFile(),
                 p -> "# winnow survivors, " + format + ", part " + p + "\n" + SurvivorLine.COLUMNS + "\n",
                 start.survivors(), hook);
-        this.rejects = new PartSeries(dir, ScanFiles.REJECTS, options.linesPerFile(),
-                p -> "# winnow rejects, " + format + ", part " + p + "\n" + RejectLine.COLUMNS + "\n",
-                start.rejects(), hook);
+        try {
+            this.rejects = new PartSeries(dir, ScanFiles.REJECTS, options.linesPerFile(),
+                    p -> "# winnow rejects, " + format + ", part " + p + "\n" + RejectLine.COLUMNS + "\n",
+                    start.rejects(), hook);
+        } catch (IOException | RuntimeException e) {
+            survivors.close();
+            throw e;
+        }
     }
 
     /**
@@ -79,20 +88,34 @@ public final class SurvivorSink implements Stage<Scored, Void> {
     public static SurvivorSink open(Path dir, ScanInfo info, SinkOptions options, Clock clock,
             Supplier<SourceReport> source, CrashHook hook) throws IOException {
         Objects.requireNonNull(info, "info");
-        Files.createDirectories(dir);
+        if (Files.exists(dir) && !Files.isDirectory(dir)) {
+            throw new IOException(dir + ": exists and is not a directory; give a new or empty directory");
+        }
+        try {
+            Files.createDirectories(dir);
+        } catch (IOException e) {
+            throw new IOException(dir + ": cannot create the scan directory (" + ScanFiles.describe(e) + ")", e);
+        }
+        DirectoryLock lock = DirectoryLock.acquire(dir, "winnow scan " + info.runId(), clock);
+        try {
+            return open(dir, info, options, clock, source, hook, lock);
+        } catch (IOException | RuntimeException e) {
+            lock.close();
+            throw e;
+        }
+    }
+
+    private static SurvivorSink open(Path dir, ScanInfo info, SinkOptions options, Clock clock,
+            Supplier<SourceReport> source, CrashHook hook, DirectoryLock lock) throws IOException {
         Path cp = dir.resolve(ScanFiles.CHECKPOINT);
+        Path manifest = dir.resolve(ScanFiles.MANIFEST);
+        if (Files.exists(manifest, LinkOption.NOFOLLOW_LINKS) && !Files.isRegularFile(manifest, LinkOption.NOFOLLOW_LINKS)) {
+            throw new ScanDamagedException(manifest + ": not a regular file; the scan cannot rewrite it");
+        }
         Checkpoint start;
-        boolean fresh = !Files.exists(cp);
+        boolean fresh = !Files.exists(cp, LinkOption.NOFOLLOW_LINKS);
         if (!fresh) {
-            try {
-                start = ScanFiles.JSON.readValue(cp.toFile(), Checkpoint.class);
-            } catch (IOException e) {
-                throw new IOException(cp + ": unreadable checkpoint: " + e.getMessage(), e);
-            }
-            if (start.formatVersion() != ScanFiles.FORMAT_VERSION) {
-                throw new IOException(cp + ": checkpoint format " + start.formatVersion() + ", this version reads "
-                        + ScanFiles.FORMAT_VERSION);
-            }
+            start = Checkpoint.read(cp);
             if (!start.runId().equals(info.runId())) {
                 throw new IOException(dir + ": holds scan " + start.runId() + ", not " + info.runId()
                         + " (other bounds, input, rules, model or file options); use a fresh directory");
@@ -104,7 +127,8 @@ public final class SurvivorSink implements Stage<Scored, Void> {
                     start.survivors(), start.rejects(), start.startedAt(), start.elapsedSeconds(), start.sessions() + 1);
         } else {
             try (var entries = Files.list(dir)) {
-                List<String> names = entries.map(p -> p.getFileName().toString()).toList();
+                List<String> names = entries.map(p -> p.getFileName().toString())
+                        .filter(n -> !n.equals(ScanFiles.LOCK)).sorted().toList();
                 if (!names.isEmpty()) {
                     throw new IOException(dir + ": not empty and holds no checkpoint (found " + names.get(0)
                             + "); give an empty or new directory");
@@ -113,7 +137,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
             start = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), 0, Map.of(), PartState.EMPTY, PartState.EMPTY,
                     clock.instant(), 0, 1);
         }
-        SurvivorSink sink = new SurvivorSink(dir, info, options, clock, source, hook, start);
+        SurvivorSink sink = new SurvivorSink(dir, info, options, clock, source, hook, start, lock);
         if (fresh) {
             // Mark the directory as this scan's at once, so that even a run that fails before its first
             // checkpoint leaves a manifest saying it is incomplete, and a rerun recognises the directory.
@@ -195,7 +219,11 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         try {
             survivors.close();
         } finally {
-            rejects.close();
+            try {
+                rejects.close();
+            } finally {
+                lock.close();
+            }
         }
     }
 
@@ -228,7 +256,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         Checkpoint cp = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), nextSeq, byCode, survivors.state(),
                 rejects.state(), start.startedAt(), elapsed(now), start.sessions());
         hook.before("checkpoint");
-        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.CHECKPOINT), ScanFiles.JSON.writeValueAsBytes(cp));
+        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.CHECKPOINT), ScanFiles.toSealedJson(cp));
         return now;
     }
 
@@ -238,6 +266,12 @@ public final class SurvivorSink implements Stage<Scored, Void> {
 
     private long scored() {
         return counts.values().stream().mapToLong(Long::longValue).sum();
+    }
+
+    private List<SealedPart> sealedParts() {
+        List<SealedPart> all = new ArrayList<>(survivors.publishedParts());
+        all.addAll(rejects.publishedParts());
+        return all;
     }
 
     private void writeManifest(boolean complete) throws IOException {
@@ -260,7 +294,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
                 report.badInputLines(),
                 new Manifest.Timings(start.startedAt(), now, elapsed(now), start.sessions(),
                         session > 0 ? scoredThisSession / session : 0),
-                survivors.published(), rejects.published());
-        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.MANIFEST), ScanFiles.JSON.writeValueAsBytes(m));
+                survivors.published(), rejects.published(), sealedParts());
+        ScanFiles.replaceAtomically(dir.resolve(ScanFiles.MANIFEST), ScanFiles.toSealedJson(m));
     }
 }

@@ -138,7 +138,7 @@ class ResumptionTest {
 
     private static long committedSeq(Path dir) throws IOException {
         Path cp = dir.resolve(ScanFiles.CHECKPOINT);
-        return Files.exists(cp) ? ScanFiles.JSON.readValue(cp.toFile(), Checkpoint.class).nextSeq() : 0;
+        return Files.exists(cp) ? Checkpoint.read(cp).nextSeq() : 0;
     }
 
     private static TreeMap<String, byte[]> committedFiles(Path dir) throws IOException {
