@@ -43,6 +43,11 @@ public final class ConfigurationText {
             while (true) {
                 s.skipBlanks();
                 degrees.add(s.signedNumber("a degree"));
+                if (degrees.size() > Configuration.MAX_COLS) {
+                    // Stop here rather than collect the rest of a runaway line (files may hold megabyte lines).
+                    throw s.error(String.format("too large: more than %d columns, at most %d are supported",
+                            Configuration.MAX_COLS, Configuration.MAX_COLS));
+                }
                 s.skipBlanks();
                 if (s.peek() == ',') {
                     s.advance();
@@ -63,6 +68,10 @@ public final class ConfigurationText {
                 break;
             }
             s.expect('/', "'/' between rows, ',' between degrees, or the end of the configuration");
+            if (rows.size() >= Configuration.MAX_ROWS) {
+                throw s.error(String.format("too large: more than %d rows, at most %d are supported",
+                        Configuration.MAX_ROWS, Configuration.MAX_ROWS));
+            }
         }
         int m = dims.size();
         int[] n = new int[m];
@@ -108,6 +117,14 @@ public final class ConfigurationText {
         return sb.toString();
     }
 
+    /**
+     * Only the ASCII digits 0-9 make numbers: {@link Character#isDigit} also accepts fullwidth and other
+     * scripts' digits, whose {@code char - '0'} is far from their value (fullwidth 5 read as 65253).
+     */
+    static boolean isAsciiDigit(char c) {
+        return c >= '0' && c <= '9';
+    }
+
     private static final class Scanner {
         private final String text;
         private final int line;
@@ -151,7 +168,7 @@ public final class ConfigurationText {
             if (peek() == '-') {
                 int start = pos;
                 pos++;
-                if (!Character.isDigit(peek())) {
+                if (!isAsciiDigit(peek())) {
                     pos = start;
                     throw error("expected " + what + " but found " + describe());
                 }
@@ -161,7 +178,7 @@ public final class ConfigurationText {
         }
 
         int number(String what) {
-            if (!Character.isDigit(peek())) {
+            if (!isAsciiDigit(peek())) {
                 throw error("expected " + what + " but found " + describe());
             }
             return digits(what);
@@ -170,11 +187,16 @@ public final class ConfigurationText {
         private int digits(String what) {
             int start = pos;
             long v = 0;
-            while (!atEnd() && Character.isDigit(text.charAt(pos))) {
+            while (!atEnd() && isAsciiDigit(text.charAt(pos))) {
                 v = v * 10 + (text.charAt(pos) - '0');
                 if (v > 1_000_000) {
                     pos = start;
-                    throw error(what + " is too large: " + text.substring(start, Math.min(text.length(), start + 12)));
+                    int end = start;
+                    while (end < text.length() && end - start < 12 && isAsciiDigit(text.charAt(end))) {
+                        end++;
+                    }
+                    throw error(what + " is too large: " + text.substring(start, end)
+                            + (end < text.length() && isAsciiDigit(text.charAt(end)) ? "..." : ""));
                 }
                 pos++;
             }
@@ -182,7 +204,12 @@ public final class ConfigurationText {
         }
 
         String describe() {
-            return atEnd() ? "the end of the input" : "'" + text.charAt(pos) + "'";
+            if (atEnd()) {
+                return "the end of the input";
+            }
+            int cp = text.codePointAt(pos);
+            // Control characters, other scripts' digits and the like would be invisible or look like ASCII.
+            return cp >= 0x20 && cp < 0x7f ? "'" + (char) cp + "'" : String.format("U+%04X", cp);
         }
 
         ConfigurationFormatException error(String problem) {

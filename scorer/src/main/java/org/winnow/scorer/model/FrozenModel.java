@@ -13,6 +13,10 @@ import org.winnow.geometry.hodge.RefinedH11Estimator;
  * takes its own {@link Predictor} from {@link #newPredictor()}.
  */
 public final class FrozenModel {
+    /** Relative difference allowed between a stored reference embedding and the forward pass's. */
+    private static final double EMBEDDING_TOLERANCE = 1e-9;
+    /** Largest neighbour count accepted beyond the reference size (a search buffer is this long). */
+    private static final int MAX_K = 1024;
     private final Architecture architecture;
     private final double[] parameters;
     private final Normalisation normalisation;
@@ -38,6 +42,7 @@ public final class FrozenModel {
         Checks.requireArgument(reference.dim() == architecture.dim(),
                 "reference embeddings have dimension %s, the network %s", reference.dim(), architecture.dim());
         Checks.requireArgument(reference.size() >= 1, "a model needs at least one reference example");
+        checkStructure(architecture, parameters, normalisation, reference, calibration);
         this.architecture = architecture;
         this.parameters = parameters.clone();
         this.normalisation = normalisation;
@@ -73,12 +78,133 @@ public final class FrozenModel {
         this.checksum = ModelFile.hex(ModelFile.sha256(ModelFile.payloadBytes(payload())));
     }
 
+    /**
+     * What a model file's checksum cannot vouch for: a payload written by something else, or edited and
+     * re-checksummed, may hold arrays of the right type but the wrong length, or numbers that are not
+     * finite, and would load and then fail (or silently mislead) in the middle of a scan. Every array the
+     * scorer indexes and every number it computes with is checked here, once, with a message naming the
+     * field.
+     */
+    private static void checkStructure(Architecture architecture, double[] parameters, Normalisation normalisation,
+            ReferenceSet reference, Calibration calibration) {
+        requireFinite(parameters, "parameters");
+        requireFinite(normalisation.rowMean(), "normalisation.rowMean");
+        requireFinite(normalisation.colMean(), "normalisation.colMean");
+        requireFinite(normalisation.globalMean(), "normalisation.globalMean");
+        requirePositive(normalisation.rowScale(), "normalisation.rowScale");
+        requirePositive(normalisation.colScale(), "normalisation.colScale");
+        requirePositive(normalisation.globalScale(), "normalisation.globalScale");
+        requireFinite(reference.embeddings(), "reference.embeddings");
+        int dimension = -1;
+        for (int i = 0; i < reference.size(); i++) {
+            String text = reference.configs()[i];
+            Checks.requireArgument(text != null, "reference configuration %s is missing", i + 1);
+            int d;
+            try {
+                d = Configuration.parse(text).dimension();
+            } catch (IllegalArgumentException e) {
+                throw new IllegalArgumentException("reference configuration " + (i + 1) + " does not parse: "
+                        + e.getMessage(), e);
+            }
+            Checks.requireArgument(dimension < 0 || d == dimension,
+                    "reference configuration %s has dimension %s, the first %s", i + 1, d, dimension);
+            dimension = d;
+            int[] h = reference.hodge()[i];
+            Checks.requireArgument(h != null && h.length >= 1, "reference label %s is missing", i + 1);
+            for (int v : h) {
+                Checks.requireArgument(v >= 0, "reference label %s holds a negative Hodge number %s", i + 1, v);
+            }
+            if (architecture.anchored()) {
+                double anchor = reference.embeddings()[i * reference.dim() + reference.dim() - 1];
+                Checks.requireArgument(anchor == Math.rint(anchor),
+                        "reference embedding %s has a non-integer anchor coordinate %s", i + 1, anchor);
+            }
+        }
+        Checks.requireArgument(Double.isFinite(calibration.bandwidth()) && Double.isFinite(calibration.tailScale()),
+                "calibration bandwidth %s and tail scale %s must be finite", calibration.bandwidth(),
+                calibration.tailScale());
+        double bw = calibration.bandwidth();
+        // The vote divides by bandwidth squared; one so small that its square is 0 or its inverse infinite
+        // turns every weight into NaN.
+        Checks.requireArgument(bw == 0 || (bw * bw > 0 && Double.isFinite(0.5 / (bw * bw))),
+                "calibration bandwidth %s is too small to vote with", bw);
+        int kLimit = Math.max(reference.size(), MAX_K);
+        Checks.requireArgument(calibration.k() <= kLimit && calibration.noveltyK() <= kLimit,
+                "calibration k %s and novelty neighbour %s must be at most %s", calibration.k(), calibration.noveltyK(),
+                kLimit);
+        double[] loo = calibration.looDistances();
+        Checks.requireArgument(loo != null, "calibration.looDistances is missing");
+        requireFinite(loo, "calibration.looDistances");
+        for (int i = 0; i < loo.length; i++) {
+            Checks.requireArgument(loo[i] >= 0 && (i == 0 || loo[i - 1] <= loo[i]),
+                    "calibration.looDistances must be non-negative and ascending, index %s is %s", i, loo[i]);
+        }
+        int[] classes = calibration.classes();
+        for (int c = 0; c < classes.length; c++) {
+            Checks.requireArgument(c == 0 || classes[c - 1] < classes[c],
+                    "calibration.classes must be strictly ascending, index %s is %s", c, classes[c]);
+            double[] q = calibration.classQuantiles()[c];
+            Checks.requireArgument(q != null && q.length == Calibration.QUANTILES.length,
+                    "calibration.classQuantiles row %s needs %s values", c, Calibration.QUANTILES.length);
+            // NaN marks a class too small to have the quantile (one member has no leave-one-out distance).
+            double last = 0;
+            for (int j = 0; j < q.length; j++) {
+                if (Double.isNaN(q[j])) {
+                    continue;
+                }
+                Checks.requireArgument(Double.isFinite(q[j]) && q[j] >= last,
+                        "calibration.classQuantiles row %s must be finite, non-negative and ascending: %s", c, q[j]);
+                last = q[j];
+            }
+        }
+    }
+
+    /**
+     * The stored reference embeddings must be what the weights give for the reference configurations
+     * (the forward pass reproduces the training pass's embeddings, see {@link InferenceNetwork}). A
+     * payload whose weights or embeddings were changed apart, or whose weights overflow on the
+     * reference, is refused here instead of producing votes that mean nothing.
+     */
+    private static void checkReferenceEmbeddings(Architecture architecture, Normalisation normalisation,
+            ReferenceSet reference, InferenceNetwork network) {
+        Workspace ws = new Workspace(architecture);
+        int dim = reference.dim();
+        for (int i = 0; i < reference.size(); i++) {
+            FeatureEncoder.encode(Configuration.parse(reference.configs()[i]), reference.chi()[i], normalisation, ws);
+            network.forward(ws);
+            for (int j = 0; j < dim; j++) {
+                double stored = reference.embeddings()[i * dim + j];
+                double computed = ws.e[j];
+                Checks.requireArgument(Math.abs(stored - computed) <= EMBEDDING_TOLERANCE * (1 + Math.abs(stored)),
+                        "reference embedding %s, coordinate %s, is %s but the weights give %s", i + 1, j + 1, stored,
+                        computed);
+            }
+        }
+    }
+
+    private static void requireFinite(double[] a, String field) {
+        Checks.requireArgument(a != null, "%s is missing", field);
+        for (int i = 0; i < a.length; i++) {
+            Checks.requireArgument(Double.isFinite(a[i]), "%s[%s] is not a finite number: %s", field, i, a[i]);
+        }
+    }
+
+    private static void requirePositive(double[] a, String field) {
+        requireFinite(a, field);
+        for (int i = 0; i < a.length; i++) {
+            Checks.requireArgument(a[i] > 0, "%s[%s] must be positive: %s", field, i, a[i]);
+        }
+    }
+
     /** Reads and verifies a {@code .wnm} file; every refusal is a one-line {@link ModelFileException}. */
     public static FrozenModel load(Path path) throws IOException {
         ModelFile.Payload p = ModelFile.read(path);
         try {
-            return new FrozenModel(p.architecture(), p.parameters(), p.normalisation(), p.reference(),
+            FrozenModel m = new FrozenModel(p.architecture(), p.parameters(), p.normalisation(), p.reference(),
                     p.calibration(), p.metadata());
+            // Only for files: models assembled in code (tests, hand-made references) need not come from training.
+            checkReferenceEmbeddings(m.architecture, m.normalisation, m.reference, m.network);
+            return m;
         } catch (RuntimeException e) {
             throw new ModelFileException(path + ": inconsistent model (" + e.getMessage() + ")");
         }

@@ -1,6 +1,9 @@
 package org.winnow.scorer.model;
 
 import com.esotericsoftware.kryo.Kryo;
+import com.esotericsoftware.kryo.KryoException;
+import com.esotericsoftware.kryo.Serializer;
+import com.esotericsoftware.kryo.serializers.DefaultArraySerializers;
 import com.esotericsoftware.kryo.io.Input;
 import com.esotericsoftware.kryo.io.Output;
 import java.io.IOException;
@@ -35,12 +38,17 @@ final class ModelFile {
         Kryo kryo = new Kryo();
         kryo.setRegistrationRequired(true);
         kryo.setReferences(false);
-        kryo.register(int[].class, 100);
-        kryo.register(int[][].class, 101);
-        kryo.register(double[].class, 102);
-        kryo.register(double[][].class, 103);
-        kryo.register(long[].class, 104);
-        kryo.register(String[].class, 105);
+        // Array lengths are checked against the bytes left before anything is allocated: a damaged or
+        // hostile length must be refused as such, not become a multi-gigabyte allocation. One byte an
+        // element is a floor every element form meets, so an array is never larger than 8x the payload.
+        kryo.register(int[].class, new BoundedArray<>(new DefaultArraySerializers.IntArraySerializer(), 1), 100);
+        kryo.register(int[][].class, new BoundedArray<>(new DefaultArraySerializers.ObjectArraySerializer(kryo,
+                int[][].class), 1), 101);
+        kryo.register(double[].class, new BoundedArray<>(new DefaultArraySerializers.DoubleArraySerializer(), 1), 102);
+        kryo.register(double[][].class, new BoundedArray<>(new DefaultArraySerializers.ObjectArraySerializer(kryo,
+                double[][].class), 1), 103);
+        kryo.register(long[].class, new BoundedArray<>(new DefaultArraySerializers.LongArraySerializer(), 1), 104);
+        kryo.register(String[].class, new BoundedArray<>(new DefaultArraySerializers.StringArraySerializer(), 1), 105);
         kryo.register(Payload.class, 110);
         kryo.register(Architecture.class, 111);
         kryo.register(Normalisation.class, 112);
@@ -48,6 +56,40 @@ final class ModelFile {
         kryo.register(Calibration.class, 114);
         kryo.register(TrainingMetadata.class, 115);
         return kryo;
+    }
+
+    /** Delegates, after checking that the array's declared length can fit in the bytes that are left. */
+    private static final class BoundedArray<T> extends Serializer<T> {
+        private final Serializer<T> inner;
+        private final int minBytesEach;
+
+        BoundedArray(Serializer<T> inner, int minBytesEach) {
+            this.inner = inner;
+            this.minBytesEach = minBytesEach;
+            // The array serializers write null themselves (as length 0); so must this one, or Kryo would
+            // add a null marker of its own and the bytes would differ from the format.
+            setAcceptsNull(inner.getAcceptsNull());
+        }
+
+        @Override
+        public void write(Kryo kryo, Output output, T object) {
+            inner.write(kryo, output, object);
+        }
+
+        @Override
+        public T read(Kryo kryo, Input input, Class<? extends T> type) {
+            int start = input.position();
+            int length = input.readVarInt(true);
+            if (length > 0) {
+                long left = input.limit() - input.position();
+                if ((long) (length - 1) * minBytesEach > left) {
+                    throw new KryoException("an array declares " + (length - 1) + " elements but only " + left
+                            + " payload bytes are left");
+                }
+            }
+            input.setPosition(start);
+            return inner.read(kryo, input, type);
+        }
     }
 
     static byte[] payloadBytes(Payload payload) {
@@ -127,6 +169,11 @@ final class ModelFile {
         } catch (RuntimeException e) {
             throw new ModelFileException(path + ": payload does not decode (" + e.getClass().getSimpleName() + ": "
                     + firstLine(e.getMessage()) + ")");
+        } catch (OutOfMemoryError e) {
+            // A string whose declared length no payload of this size can hold; the failed allocation
+            // was the only large one, so the heap is usable again.
+            throw new ModelFileException(path + ": payload does not decode (a declared length is far larger "
+                    + "than the " + payload.length + "-byte payload)");
         }
     }
 
