@@ -209,6 +209,10 @@ public final class ConfigurationText {
             }
             int cp = text.codePointAt(pos);
             // Control characters, other scripts' digits and the like would be invisible or look like ASCII.
+            if (cp == 0xFFFD) {
+                // What a reader puts where the bytes were not UTF-8.
+                return "U+FFFD (bytes that are not valid UTF-8)";
+            }
             return cp >= 0x20 && cp < 0x7f ? "'" + (char) cp + "'" : String.format("U+%04X", cp);
         }
 

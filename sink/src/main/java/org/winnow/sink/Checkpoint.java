@@ -29,7 +29,13 @@ public record Checkpoint(int formatVersion, String runId, long nextSeq, Map<Stri
      * @throws java.io.IOException with one line naming the file when anything is wrong
      */
     public static Checkpoint read(Path file) throws java.io.IOException {
-        Checkpoint cp = ScanFiles.readJson(file, Checkpoint.class, "checkpoint");
+        ScanFiles.requireRegularFile(file, "checkpoint");
+        return parse(java.nio.file.Files.readAllBytes(file), file);
+    }
+
+    /** {@link #read} on bytes already read; {@code file} names them in messages. */
+    static Checkpoint parse(byte[] bytes, Path file) throws ScanDamagedException {
+        Checkpoint cp = ScanFiles.parseJson(bytes, file, Checkpoint.class, "checkpoint");
         if (cp.formatVersion() != ScanFiles.FORMAT_VERSION) {
             throw new ScanDamagedException(file + ": checkpoint format " + cp.formatVersion()
                     + ", this version reads " + ScanFiles.FORMAT_VERSION);

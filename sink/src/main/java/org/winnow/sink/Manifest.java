@@ -23,10 +23,12 @@ import org.winnow.pipeline.BadInput;
  * @param rejectFiles   committed reject files, in order (empty unless asked for)
  * @param sealedParts   length, lines and SHA-256 of every file in {@code survivorFiles} and
  *                      {@code rejectFiles}, survivors first; what a reader checks the files against
+ * @param modelFile     the model file the scan read (absolute path), or null; its checksum must still be
+ *                      {@code modelChecksum} for a reader to use it
  */
 public record Manifest(int formatVersion, String runId, boolean complete, String source, Object bounds,
         List<String> rules, String modelChecksum, Counts counts, List<BadInput> badInputLines, Timings timings,
-        List<String> survivorFiles, List<String> rejectFiles, List<SealedPart> sealedParts) {
+        List<String> survivorFiles, List<String> rejectFiles, List<SealedPart> sealedParts, String modelFile) {
 
     /**
      * Counts. They reconcile: {@code enumerated = duplicates + candidates}, {@code scored = rejected + kept},
@@ -64,7 +66,13 @@ public record Manifest(int formatVersion, String runId, boolean complete, String
      *     a manifest of this format, or a field is missing or out of range
      */
     public static Manifest read(java.nio.file.Path file) throws java.io.IOException {
-        Manifest m = ScanFiles.readJson(file, Manifest.class, "manifest");
+        ScanFiles.requireRegularFile(file, "manifest");
+        return parse(java.nio.file.Files.readAllBytes(file), file);
+    }
+
+    /** {@link #read} on bytes already read; {@code file} names them in messages. */
+    static Manifest parse(byte[] bytes, java.nio.file.Path file) throws ScanDamagedException {
+        Manifest m = ScanFiles.parseJson(bytes, file, Manifest.class, "manifest");
         m.check(file);
         return m;
     }

@@ -58,13 +58,22 @@ public final class ScanFiles {
      * @param what what the file should be, for the message ("checkpoint", "manifest")
      */
     static <T> T readJson(Path file, Class<T> type, String what) throws IOException {
+        requireRegularFile(file, what);
+        return parseJson(Files.readAllBytes(file), file, type, what);
+    }
+
+    static void requireRegularFile(Path file, String what) throws ScanDamagedException {
         if (!Files.isRegularFile(file)) {
             throw new ScanDamagedException(file + ": " + (Files.exists(file) ? "not a regular file" : "missing")
                     + ", expected the scan's " + what);
         }
+    }
+
+    /** {@link #readJson} on bytes already read; {@code file} names them in messages. */
+    static <T> T parseJson(byte[] bytes, Path file, Class<T> type, String what) throws ScanDamagedException {
         T value;
         try {
-            JsonNode tree = JSON.readTree(file.toFile());
+            JsonNode tree = JSON.readTree(bytes);
             if (tree == null || !tree.isObject()) {
                 throw new ScanDamagedException(file + ": unreadable " + what + ": not a JSON object");
             }
@@ -82,6 +91,9 @@ public final class ScanFiles {
             String where = e.getLocation() == null ? "" : " (line " + e.getLocation().getLineNr() + ")";
             throw new ScanDamagedException(file + ": unreadable " + what + where + ": "
                     + oneLine(e.getOriginalMessage()));
+        } catch (IOException e) {
+            // Reading from a byte array fails only as a parse does; kept apart for the compiler.
+            throw new ScanDamagedException(file + ": unreadable " + what + ": " + describe(e));
         }
         if (value == null) {
             throw new ScanDamagedException(file + ": unreadable " + what + ": it holds null");

@@ -294,7 +294,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
                 report.badInputLines(),
                 new Manifest.Timings(start.startedAt(), now, elapsed(now), start.sessions(),
                         session > 0 ? scoredThisSession / session : 0),
-                survivors.published(), rejects.published(), sealedParts());
+                survivors.published(), rejects.published(), sealedParts(), info.modelFile());
         ScanFiles.replaceAtomically(dir.resolve(ScanFiles.MANIFEST), ScanFiles.toSealedJson(m));
     }
 }

@@ -12,6 +12,7 @@ import org.winnow.app.model.TrainCommand;
 import org.winnow.app.scan.DemoCommand;
 import org.winnow.app.scan.EnumerateCommand;
 import org.winnow.app.scan.ScanCommand;
+import org.winnow.app.scan.VerifyCommand;
 import org.winnow.app.watch.WatchCommand;
 import picocli.CommandLine.Command;
 import picocli.CommandLine;
@@ -27,6 +28,7 @@ import picocli.CommandLine;
             DemoCommand.class,
             EnumerateCommand.class,
             ScanCommand.class,
+            VerifyCommand.class,
             InvariantsCommand.class,
             TrainCommand.class,
             EvaluateCommand.class,
@@ -56,7 +58,9 @@ public final class WinnowCli implements Runnable {
     }
 
     public static void main(String[] args) {
-        System.exit(commandLine().execute(args));
+        CommandLine cl = commandLine();
+        int code = cl.execute(args);
+        System.exit(CheckedOutput.exitCode(code, cl.getOut(), System.out, System.err));
     }
 
     static final class Version implements CommandLine.IVersionProvider {

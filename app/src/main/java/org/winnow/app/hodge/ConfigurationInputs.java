@@ -3,6 +3,7 @@ package org.winnow.app.hodge;
 import java.io.BufferedReader;
 import java.io.IOException;
 import java.io.InputStreamReader;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -11,7 +12,9 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.function.Function;
 import me.tongfei.progressbar.ProgressBar;
+import org.winnow.app.cli.StandardInput;
 import org.winnow.geometry.ConfigurationText;
+import org.winnow.sink.ScanFiles;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
@@ -54,9 +57,22 @@ final class ConfigurationInputs {
         }
         for (String file : files) {
             String name = "-".equals(file) ? "standard input" : file;
-            try (BufferedReader reader = "-".equals(file)
-                    ? new BufferedReader(new InputStreamReader(System.in, StandardCharsets.UTF_8))
-                    : Files.newBufferedReader(Path.of(file), StandardCharsets.UTF_8);
+            if ("-".equals(file)) {
+                String problem = StandardInput.problem();
+                if (problem != null) {
+                    unreadable.report(name, problem);
+                    continue;
+                }
+            } else if (Files.isDirectory(Path.of(file))) {
+                unreadable.report(name, "is a directory; give a file of configurations, one a line");
+                continue;
+            }
+            // Bytes that are not UTF-8 become U+FFFD, so such a line is refused with its number like any
+            // other bad line (as scan --input does), instead of the whole file failing to decode.
+            try (BufferedReader reader = new BufferedReader(new InputStreamReader("-".equals(file) ? System.in
+                    : Files.newInputStream(Path.of(file)), StandardCharsets.UTF_8.newDecoder()
+                            .onMalformedInput(CodingErrorAction.REPLACE)
+                            .onUnmappableCharacter(CodingErrorAction.REPLACE)), 1 << 16);
                     ProgressBar bar = progress.apply(name)) {
                 String line;
                 int number = 0;
@@ -73,7 +89,7 @@ final class ConfigurationInputs {
             } catch (NoSuchFileException e) {
                 unreadable.report(name, "no such file");
             } catch (IOException e) {
-                unreadable.report(name, "cannot read: " + e.getMessage());
+                unreadable.report(name, "cannot read: " + ScanFiles.describe(e));
             }
         }
     }

@@ -11,6 +11,7 @@ import java.util.concurrent.ExecutorService;
 import java.util.concurrent.Executors;
 import java.util.concurrent.Future;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.Limits;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.ConfigurationFormatException;
@@ -30,9 +31,10 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "hodge", mixinStandardHelpOptions = true,
         description = {
-            "Compute the Hodge numbers of Calabi-Yau configuration matrices (K3: h11; three-folds: h11, h21;",
-            "four-folds: h11, h21, h31, h22). Each result is exact, bounded (proved intervals) or refused.",
-            "Computed on the canonical form; the method is the strongest tool needed (dimensions, d1, transferred)."})
+            "Compute the Hodge numbers of Calabi-Yau configuration matrices, exactly or as proved bounds.",
+            "K3: h11; three-folds: h11, h21; four-folds: h11, h21, h31, h22. Each result is exact, bounded (proved "
+                    + "intervals) or refused. Computed on the canonical form; the method is the strongest tool "
+                    + "needed (dimensions, d1, transferred)."})
 public final class HodgeCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -62,8 +64,8 @@ public final class HodgeCommand implements Callable<Integer> {
     public Integer call() {
         out = spec.commandLine().getOut();
         err = spec.commandLine().getErr();
-        if (threads < 1) {
-            return Exit.badInput(err, "hodge", "--threads must be at least 1, got " + threads);
+        if (Limits.threadsProblem(threads) != null) {
+            return Exit.badInput(err, "hodge", Limits.threadsProblem(threads));
         }
         if (inputs.isEmpty()) {
             return Exit.badInput(err, "hodge", "no configuration given (pass CONFIG arguments or --file F)");
@@ -128,7 +130,7 @@ public final class HodgeCommand implements Callable<Integer> {
 
     private void reportBad(String source, String input, String reason) {
         bad++;
-        String what = input.isEmpty() ? source : source + " '" + input + "'";
+        String what = input.isEmpty() ? source : source + " '" + Limits.excerpt(input) + "'";
         err.println("winnow hodge: " + what + ": " + reason);
     }
 }

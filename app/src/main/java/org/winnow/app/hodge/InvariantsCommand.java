@@ -11,6 +11,7 @@ import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.Limits;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.ConfigurationFormatException;
@@ -31,9 +32,10 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "invariants", mixinStandardHelpOptions = true,
         description = {
-            "Print the cheap exact invariants (Euler characteristic, blocks, degree; c2.J and triple",
-            "intersections of three-folds; int c2^2 of four-folds) of Calabi-Yau configuration matrices.",
-            "Invariants are given for the canonical form, in its row order (0-based row indices)."})
+            "Print the cheap exact invariants of Calabi-Yau configuration matrices.",
+            "Euler characteristic, blocks and degree; c2.J and triple intersections of three-folds; int c2^2 of "
+                    + "four-folds. Invariants are given for the canonical form, in its row order (0-based row "
+                    + "indices)."})
 public final class InvariantsCommand implements Callable<Integer> {
     private static final ObjectMapper JSON = new ObjectMapper();
 
@@ -104,7 +106,7 @@ public final class InvariantsCommand implements Callable<Integer> {
 
     private void reportBad(String source, String input, String reason) {
         bad++;
-        String what = input.isEmpty() ? source : source + " '" + input + "'";
+        String what = input.isEmpty() ? source : source + " '" + Limits.excerpt(input) + "'";
         err.println("winnow invariants: " + what + ": " + reason);
     }
 

@@ -28,7 +28,9 @@ import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.Limits;
 import org.winnow.app.cli.WinnowCli;
+import org.winnow.sink.ScanFiles;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.ConfigurationFormatException;
 import org.winnow.geometry.ConfigurationText;
@@ -50,9 +52,9 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "label", mixinStandardHelpOptions = true,
         description = {
-            "Label configurations with exact (or proved-bounded) Hodge numbers into a reference TSV:",
-            "config  h11  h21  [h31  h22]  status  source. Bounded values are written lo..hi.",
-            "Rerunning with the same --out continues where the last run stopped."})
+            "Label configurations with exact (or proved-bounded) Hodge numbers into a reference TSV.",
+            "Columns: config  h11  h21  [h31  h22]  status  source. Bounded values are written lo..hi. Rerunning "
+                    + "with the same --out continues where the last run stopped."})
 public final class LabelCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -70,16 +72,50 @@ public final class LabelCommand implements Callable<Integer> {
     private int bad;
 
     @Override
-    public Integer call() throws IOException, InterruptedException {
+    public Integer call() throws InterruptedException {
         err = spec.commandLine().getErr();
-        if (threads < 1) {
-            return Exit.badInput(err, "label", "--threads must be at least 1, got " + threads);
+        try {
+            return label();
+        } catch (IOException e) {
+            return failedWrite(e);
+        } catch (java.io.UncheckedIOException e) {
+            return failedWrite(e.getCause());
+        } catch (IllegalStateException e) {
+            if (e.getCause() instanceof java.io.UncheckedIOException u) {
+                return failedWrite(u.getCause());
+            }
+            if (e.getCause() instanceof IOException io) {
+                return failedWrite(io);
+            }
+            throw e;
+        } catch (IllegalArgumentException e) {
+            return Exit.badInput(err, "label", e.getMessage());
+        }
+    }
+
+    /** A failed read or write (a full disk, a directory in the way): one line; what was appended stays. */
+    private int failedWrite(IOException e) {
+        err.println("winnow label: " + out + ": " + ScanFiles.describe(e)
+                + "; the lines written so far stay, rerun the same command to continue");
+        err.flush();
+        return Exit.STOPPED;
+    }
+
+    private int label() throws IOException, InterruptedException {
+        if (Limits.threadsProblem(threads) != null) {
+            return Exit.badInput(err, "label", Limits.threadsProblem(threads));
         }
         Set<String> done = new HashSet<>();
         Boolean fourfoldColumns = readExisting(done);
         Map<String, Configuration> pending = new LinkedHashMap<>();
         int skipped = 0;
-        try (BufferedReader reader = Files.newBufferedReader(in, StandardCharsets.UTF_8)) {
+        if (Files.isDirectory(in)) {
+            return Exit.badInput(err, "label", in + ": is a directory; give a file of configurations, one a line");
+        }
+        // Bytes that are not UTF-8 become U+FFFD: that line is refused with its number, the rest is read.
+        try (BufferedReader reader = new BufferedReader(new java.io.InputStreamReader(Files.newInputStream(in),
+                StandardCharsets.UTF_8.newDecoder().onMalformedInput(java.nio.charset.CodingErrorAction.REPLACE)
+                        .onUnmappableCharacter(java.nio.charset.CodingErrorAction.REPLACE)), 1 << 16)) {
             String line;
             int number = 0;
             while ((line = reader.readLine()) != null) {
@@ -185,7 +221,7 @@ public final class LabelCommand implements Callable<Integer> {
 
     private void reportBad(int number, String input, String reason) {
         bad++;
-        err.println("winnow label: " + in + " line " + number + " '" + input + "': " + reason);
+        err.println("winnow label: " + in + " line " + number + " '" + Limits.excerpt(input) + "': " + reason);
     }
 
     /**

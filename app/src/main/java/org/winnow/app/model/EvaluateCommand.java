@@ -22,10 +22,10 @@ import picocli.CommandLine.Spec;
 
 /** {@code winnow evaluate}: held-out metrics of a frozen model on a reference file, with two pictures. */
 @Command(name = "evaluate", mixinStandardHelpOptions = true,
-        description = {"Evaluate a frozen model on the exact rows of a reference file that are not in the model's",
-            "own reference set: accuracy, per-class recall and precision, confusion matrix, reliability,",
-            "and with --holdout-class the novelty AUROC of that class; writes two PNGs (and with --out a",
-            "JSON file for winnow report); ends with a name: value summary."})
+        description = {"Evaluate a frozen model on the exact rows of a reference file outside its own reference set.",
+            "Reports accuracy, per-class recall and precision, confusion matrix, reliability, and with "
+                    + "--holdout-class the novelty AUROC of that class; writes two PNGs (and with --out a JSON file "
+                    + "for winnow report); ends with a name: value summary."})
 public final class EvaluateCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;

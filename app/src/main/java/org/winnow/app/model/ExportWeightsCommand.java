@@ -22,8 +22,9 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "export-weights", mixinStandardHelpOptions = true,
         description = {
-            "Write a frozen model's network weights, input normalisation, vote settings and reference",
-            "embeddings with their labels as JSON (format winnow-weights v1, see bench/README.md)."})
+            "Write a frozen model's weights, normalisation, vote settings and labelled reference as JSON.",
+            "The format is winnow-weights v1 (see bench/README.md): network weights, input normalisation, vote "
+                    + "settings and the reference embeddings with their labels."})
 public final class ExportWeightsCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;

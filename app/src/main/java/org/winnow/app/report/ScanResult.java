@@ -6,6 +6,7 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.winnow.sink.Manifest;
+import org.winnow.sink.ScanCheck;
 import org.winnow.sink.ScanFiles;
 import org.winnow.sink.SurvivorLine;
 
@@ -32,7 +33,13 @@ record ScanResult(Manifest manifest, List<SurvivorLine> survivors) {
         try {
             m = Manifest.read(manifestFile);
         } catch (IOException e) {
-            throw new BadScanDir(manifestFile + ": unreadable manifest (" + e.getMessage() + ")");
+            throw new BadScanDir(e.getMessage());
+        }
+        try {
+            // The report reads the parts the manifest lists; each must be the one the scan committed.
+            ScanCheck.listed(dir, m);
+        } catch (IOException e) {
+            throw new BadScanDir(e.getMessage());
         }
         List<SurvivorLine> survivors = new ArrayList<>();
         for (String name : m.survivorFiles()) {

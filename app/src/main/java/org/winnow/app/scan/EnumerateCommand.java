@@ -12,6 +12,7 @@ import java.util.concurrent.Callable;
 import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
+import org.winnow.app.cli.CheckedOutput;
 import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.Terminal;
 import org.winnow.app.cli.WinnowCli;
@@ -71,40 +72,49 @@ public final class EnumerateCommand implements Callable<Integer> {
             out.flush();
             return 0;
         }
-        Writer target;
-        try {
-            target = outFile == null
-                    ? spec.commandLine().getOut()
-                    : new BufferedWriter(Files.newBufferedWriter(outFile, StandardCharsets.UTF_8), 1 << 16);
-        } catch (IOException e) {
-            return Exit.badInput(err, "enumerate", "cannot write " + outFile + ": " + e.getMessage());
-        }
-        boolean toFile = outFile != null;
         try (ProgressBar progress = progressBar()) {
-            Writer w = target;
-            enumerator.run(bounds, ruleSet, shardSpec, e -> {
-                try {
-                    w.write(e.toLine());
-                    w.write('\n');
-                } catch (IOException x) {
-                    throw new UncheckedIOException(x);
+            if (outFile == null) {
+                PrintWriter out = spec.commandLine().getOut();
+                write(enumerator, bounds, ruleSet, shardSpec, out, progress, () -> CheckedOutput.failed(out));
+                if (CheckedOutput.failed(out)) {
+                    throw new IOException("cannot write standard output (disk full, closed pipe or device error)");
                 }
-                if (progress != null) {
-                    progress.step();
-                }
-            });
-            if (toFile) {
-                w.close();
             } else {
-                w.flush();
+                // Through a temporary name: a full disk must not leave a partial list under the final name.
+                CheckedOutput.replace(outFile, w -> write(enumerator, bounds, ruleSet, shardSpec, w, progress,
+                        () -> false));
             }
         } catch (IOException | UncheckedIOException e) {
-            err.println("winnow enumerate: cannot write " + (outFile == null ? "standard output" : outFile)
-                    + ": " + e.getMessage());
+            String reason = e instanceof UncheckedIOException u ? u.getCause().getMessage() : e.getMessage();
+            err.println("winnow enumerate: " + (outFile == null ? "" : outFile + ": ") + reason
+                    + "; the output is incomplete");
             err.flush();
-            return 1;
+            return Exit.STOPPED;
         }
         return 0;
+    }
+
+    /** How often (in lines) standard output is checked for a failed write, which a PrintWriter only remembers. */
+    private static final int CHECK_EVERY = 4096;
+
+    private static void write(Enumerator enumerator, Bounds bounds, RuleSet ruleSet, ShardSpec shardSpec, Writer w,
+            ProgressBar progress, java.util.function.BooleanSupplier failed) throws IOException {
+        long[] lines = {0};
+        enumerator.run(bounds, ruleSet, shardSpec, e -> {
+            try {
+                w.write(e.toLine());
+                w.write('\n');
+                if (++lines[0] % CHECK_EVERY == 0 && failed.getAsBoolean()) {
+                    throw new IOException("cannot write standard output (disk full, closed pipe or device error)");
+                }
+            } catch (IOException x) {
+                throw new UncheckedIOException(x);
+            }
+            if (progress != null) {
+                progress.step();
+            }
+        });
+        w.flush();
     }
 
     /** Count and rate on stderr, only when a person is watching it. */

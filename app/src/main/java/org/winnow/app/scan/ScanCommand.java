@@ -13,6 +13,7 @@ import java.util.OptionalDouble;
 import java.util.concurrent.Callable;
 import java.util.concurrent.atomic.AtomicReference;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.Limits;
 import org.winnow.app.cli.MetricsPortOption;
 import org.winnow.app.cli.ProcessMetrics;
 import org.winnow.app.cli.WinnowCli;
@@ -172,8 +173,8 @@ public final class ScanCommand implements Callable<Integer> {
 
     private ScanJob.Settings settings() throws StartupException {
         KeepRules rules = rules();
-        if (threads != null && threads < 1) {
-            throw new StartupException("--threads must be at least 1, got " + threads);
+        if (threads != null && Limits.threadsProblem(threads) != null) {
+            throw new StartupException(Limits.threadsProblem(threads));
         }
         if (queue < 1) {
             throw new StartupException("--queue must be at least 1, got " + queue);
@@ -203,6 +204,10 @@ public final class ScanCommand implements Callable<Integer> {
             }
             source = new EnumerationSource(enumerated, EnumerationSource.COUNT_BUDGET, System::nanoTime);
         } else {
+            if (Files.isDirectory(input)) {
+                throw new StartupException("--input " + input + ": is a directory; give a file of configurations, "
+                        + "one a line");
+            }
             if (!Files.isReadable(input)) {
                 throw new StartupException("--input " + input + ": no such readable file");
             }

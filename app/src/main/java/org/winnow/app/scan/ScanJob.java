@@ -93,9 +93,14 @@ public final class ScanJob {
         };
         ScanInfo info = new ScanInfo(runId(s), s.source().description(),
                 s.space() == null ? null : s.space().manifestValue(), s.rules().describe(),
-                s.scoring().modelChecksum());
+                s.scoring().modelChecksum(), s.scoring().modelFile());
         SurvivorSink sink = SurvivorSink.open(s.out(), info, s.sink(), clock, report, hook);
-        started.accept(new ScanStatus(registry, report, s.source().size()));
+        try {
+            started.accept(new ScanStatus(registry, report, s.source().size()));
+        } catch (RuntimeException e) {
+            sink.close(); // releases the directory's lock; the pipeline closes it on every later path
+            throw e;
+        }
         LocalPipeline.Result result = new LocalPipeline(s.pipeline(), registry).run(s.source(), s.policy(),
                 sink.resumeFrom(), i -> new ScorerStage(s.scoring(), s.rules(), System::nanoTime), sink, sequencer::set);
         return new Outcome(Manifest.read(s.out().resolve(ScanFiles.MANIFEST)), result);

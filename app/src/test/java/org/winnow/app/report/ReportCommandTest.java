@@ -53,15 +53,27 @@ class ReportCommandTest {
                 "--keep", "chi=-150..0", "--min-confidence", "0.5", "--novelty", "0.9", "--out", scanDir.toString(),
                 "--threads", "2", "--lines-per-file", "40");
         assertEquals(0, r.exit(), r.err());
+        // The same scan with a model file that is gone afterwards: the report has no model to draw with.
+        Path gone = shared.resolve("gone.wnm");
+        Files.copy(model, gone);
+        orphanDir = shared.resolve("orphan");
+        Run o = winnow("scan", "--model", gone.toString(), "--input", input.file().toString(), "--keep", "h11=2..5",
+                "--keep", "chi=-150..0", "--min-confidence", "0.5", "--novelty", "0.9", "--out", orphanDir.toString(),
+                "--threads", "2", "--lines-per-file", "40");
+        assertEquals(0, o.exit(), o.err());
+        Files.delete(gone);
     }
+
+    static Path orphanDir;
 
     @Test
     void selfContainedPageWithEverySectionAndTheScansOwnCounts(@TempDir Path dir) throws Exception {
         Path html = dir.resolve("r/report.html");
-        Run r = winnow("report", scanDir.toString(), "--out", html.toString(), "--top", "25");
+        Run r = winnow("report", orphanDir.toString(), "--out", html.toString(), "--top", "25");
         assertEquals(0, r.exit(), r.err());
+        assertTrue(r.err().contains("gone.wnm is no longer there; no embedding map (give --model M.wnm)"), r.err());
         String page = Files.readString(html);
-        Manifest m = Manifest.read(scanDir.resolve(ScanFiles.MANIFEST));
+        Manifest m = Manifest.read(orphanDir.resolve(ScanFiles.MANIFEST));
 
         List<String> images = selfContainedImages(page);
         for (String id : ReportHtml.SECTIONS) {
@@ -82,6 +94,63 @@ class ReportCommandTest {
         int rows = page.split("<tr><td><code>", -1).length - 1;
         assertEquals(Math.min(25, m.counts().kept()), rows);
         assertTrue(r.out().contains("report: " + html), r.out());
+    }
+
+    /**
+     * {@code winnow report} used to need {@code --model} for the map although the scan knows its model: now
+     * the model file the manifest names is used when its checksum still matches.
+     */
+    @Test
+    void withoutModelOptionTheScansOwnModelDrawsTheMap(@TempDir Path dir) throws Exception {
+        Path html = dir.resolve("report.html");
+        Run r = winnow("report", scanDir.toString(), "--out", html.toString());
+        assertEquals(0, r.exit(), r.err());
+        assertTrue(r.err().contains("embedding map with the scan's model " + model.toAbsolutePath().normalize()), r.err());
+        assertFalse(Files.readString(html).contains("needs the model"));
+    }
+
+    /**
+     * {@code winnow report} on the directory given to {@code winnow demo --out} used to refuse: the scan sits
+     * one level down. A single scan below is found; two are refused, naming them.
+     */
+    @Test
+    void aScanOneLevelDownIsFoundAndTwoAreRefused(@TempDir Path dir) throws Exception {
+        Path outer = dir.resolve("outer");
+        copy(scanDir, outer.resolve("scan"));
+        Path html = dir.resolve("report.html");
+        Run r = winnow("report", outer.toString(), "--out", html.toString());
+        assertEquals(0, r.exit(), r.err());
+        assertTrue(r.err().contains(outer + " holds no scan itself; reporting on " + outer.resolve("scan")), r.err());
+        copy(scanDir, outer.resolve("second"));
+        Run two = winnow("report", outer.toString(), "--out", html.toString());
+        assertEquals(2, two.exit());
+        assertTrue(two.err().startsWith("winnow report: " + outer + ": holds 2 scans"), two.err());
+    }
+
+    /** A committed part cut after the scan is refused in one line naming it, not reported on. */
+    @Test
+    void aDamagedPartIsRefusedNamingIt(@TempDir Path dir) throws Exception {
+        Path copy = dir.resolve("scan");
+        copy(scanDir, copy);
+        Path part = copy.resolve("survivors-00001.tsv");
+        byte[] b = Files.readAllBytes(part);
+        Files.write(part, java.util.Arrays.copyOf(b, b.length - 10));
+        Run r = winnow("report", copy.toString(), "--out", dir.resolve("r.html").toString());
+        assertEquals(2, r.exit());
+        assertEquals("winnow report: " + part + ": " + (b.length - 10) + " bytes, but the manifest records " + b.length
+                + " for this sealed part; it was cut, extended or replaced\n", r.err());
+        assertFalse(Files.exists(dir.resolve("r.html")));
+    }
+
+    private static void copy(Path from, Path to) throws java.io.IOException {
+        Files.createDirectories(to);
+        try (var s = Files.list(from)) {
+            for (Path p : (Iterable<Path>) s::iterator) {
+                if (Files.isRegularFile(p)) {
+                    Files.copy(p, to.resolve(p.getFileName()));
+                }
+            }
+        }
     }
 
     @Test

@@ -1,12 +1,17 @@
 package org.winnow.scorer.rules;
 
 import java.io.IOException;
+import java.nio.ByteBuffer;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.HashMap;
 import java.util.List;
+import java.util.Map;
 import java.util.OptionalDouble;
+import org.winnow.pipeline.Keepable;
 
 /**
  * The file form of the rules, one a line, {@code #} starting a comment:
@@ -36,7 +41,11 @@ public final class RulesFile {
 
     /** Reads a rules file; {@link RuleException} for a bad line, {@link IOException} for a missing file. */
     public static Contents read(Path file) throws IOException {
-        return parse(Files.readAllLines(file, StandardCharsets.UTF_8), file.toString());
+        // Bytes that are not UTF-8 become U+FFFD, so the line holding them is refused with its number.
+        String text = StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPLACE)
+                .onUnmappableCharacter(CodingErrorAction.REPLACE).decode(ByteBuffer.wrap(Files.readAllBytes(file)))
+                .toString();
+        return parse(text.lines().toList(), file.toString());
     }
 
     /** Parses the lines of a rules file named {@code name} in messages. */
@@ -44,6 +53,9 @@ public final class RulesFile {
         List<String> keeps = new ArrayList<>();
         OptionalDouble minConfidence = OptionalDouble.empty();
         OptionalDouble novelty = OptionalDouble.empty();
+        Map<Keepable, String> rangeAt = new HashMap<>();
+        String confidenceAt = null;
+        String noveltyAt = null;
         for (int i = 0; i < lines.size(); i++) {
             String line = lines.get(i);
             int hash = line.indexOf('#');
@@ -57,11 +69,38 @@ public final class RulesFile {
             try {
                 switch (parts[0]) {
                     case KEEP -> {
-                        RangeRule.parse(value);
+                        RangeRule rule = RangeRule.parse(value);
+                        String before = rangeAt.putIfAbsent(rule.invariant(), where);
+                        if (before != null) {
+                            throw new RuleException(String.format("rule '%s': %s already has a range at %s; give one "
+                                    + "range per invariant", body, rule.invariant().label(), before));
+                        }
                         keeps.add(value);
                     }
-                    case MIN_CONFIDENCE -> minConfidence = OptionalDouble.of(number(body, value));
-                    case NOVELTY -> novelty = OptionalDouble.of(number(body, value));
+                    case MIN_CONFIDENCE -> {
+                        if (confidenceAt != null) {
+                            throw new RuleException(String.format("rule '%s': min-confidence is set already at %s",
+                                    body, confidenceAt));
+                        }
+                        double x = number(body, value);
+                        if (!(x >= 0 && x <= 1)) {
+                            throw new RuleException(String.format("rule '%s': must be in [0, 1]", body));
+                        }
+                        confidenceAt = where;
+                        minConfidence = OptionalDouble.of(x);
+                    }
+                    case NOVELTY -> {
+                        if (noveltyAt != null) {
+                            throw new RuleException(String.format("rule '%s': novelty is set already at %s", body,
+                                    noveltyAt));
+                        }
+                        double x = number(body, value);
+                        if (!(x > 0 && x <= 1)) {
+                            throw new RuleException(String.format("rule '%s': must be in (0, 1]", body));
+                        }
+                        noveltyAt = where;
+                        novelty = OptionalDouble.of(x);
+                    }
                     default -> throw new RuleException(String.format("rule '%s': expected '%s INVARIANT=LO..HI', '%s X' or '%s X'",
                             body, KEEP, MIN_CONFIDENCE, NOVELTY));
                 }

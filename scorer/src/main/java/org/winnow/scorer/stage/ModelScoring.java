@@ -17,14 +17,25 @@ import org.winnow.scorer.model.Predictor;
  */
 public final class ModelScoring implements ScoringFunctions {
     private final FrozenModel model;
+    private final String file;
 
     public ModelScoring(FrozenModel model) {
+        this(model, null);
+    }
+
+    private ModelScoring(FrozenModel model, String file) {
         this.model = Objects.requireNonNull(model, "model");
+        this.file = file;
     }
 
     /** Loads and verifies a {@code .wnm} file; the exception message is one line naming the file. */
     public static ModelScoring load(Path file) throws IOException {
-        return new ModelScoring(FrozenModel.load(file));
+        return new ModelScoring(FrozenModel.load(file), file.toAbsolutePath().normalize().toString());
+    }
+
+    @Override
+    public String modelFile() {
+        return file;
     }
 
     @Override

@@ -13,4 +13,9 @@ public interface ScoringFunctions {
 
     /** The checksum of the model behind the predictions, for the manifest. */
     String modelChecksum();
+
+    /** The model file these functions were loaded from, as an absolute path, or null when not from a file. */
+    default String modelFile() {
+        return null;
+    }
 }

@@ -1,0 +1,63 @@
+package org.winnow.app.cli;
+
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import org.junit.jupiter.api.Test;
+import picocli.CommandLine;
+
+/**
+ * {@code winnow --help} lists each command with the first line of its description. Six of sixteen used to
+ * stop mid-sentence ("... c2.J and triple", "... reference TSV:") because a long sentence had been wrapped
+ * by hand over several description lines. Every summary must be a whole sentence on its own.
+ */
+class HelpSummaryTest {
+    @Test
+    void everyCommandSummaryIsAWholeSentence() {
+        CommandLine cl = WinnowCli.commandLine();
+        List<String> bad = new ArrayList<>();
+        int checked = 0;
+        for (Map.Entry<String, CommandLine> e : cl.getSubcommands().entrySet()) {
+            CommandLine.Model.UsageMessageSpec usage = e.getValue().getCommandSpec().usageMessage();
+            String[] lines = usage.header().length > 0 ? usage.header() : usage.description();
+            String summary = lines.length == 0 ? "" : lines[0].strip();
+            checked++;
+            if (!isWholeSentence(summary)) {
+                bad.add(e.getKey() + ": '" + summary + "'");
+            }
+        }
+        assertTrue(checked >= 16, "only " + checked + " commands");
+        assertTrue(bad.isEmpty(), "summaries that are not one whole sentence: " + bad);
+    }
+
+    @Test
+    void theHelpScreenShowsEverySummaryWhole() {
+        java.io.StringWriter text = new java.io.StringWriter();
+        CommandLine cl = WinnowCli.commandLine();
+        cl.setOut(new java.io.PrintWriter(text));
+        cl.execute("--help");
+        String help = text.toString().replaceAll("\\s+", " ");
+        for (CommandLine sub : cl.getSubcommands().values()) {
+            CommandLine.Model.UsageMessageSpec usage = sub.getCommandSpec().usageMessage();
+            String[] lines = usage.header().length > 0 ? usage.header() : usage.description();
+            String summary = lines[0].strip().replaceAll("\\s+", " ");
+            assertTrue(help.contains(summary), "the help screen does not show whole: " + summary);
+        }
+    }
+
+    static boolean isWholeSentence(String s) {
+        if (s.length() < 10 || !Character.isUpperCase(s.charAt(0)) || !s.endsWith(".")) {
+            return false;
+        }
+        int depth = 0;
+        for (char c : s.toCharArray()) {
+            depth += c == '(' ? 1 : c == ')' ? -1 : 0;
+            if (depth < 0) {
+                return false;
+            }
+        }
+        return depth == 0 && !s.endsWith("e.g.") && !s.endsWith("i.e.");
+    }
+}

@@ -1,0 +1,218 @@
+package org.winnow.app.cli;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertNotEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import java.io.File;
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.winnow.scorer.rules.RuleException;
+import org.winnow.scorer.rules.RulesFile;
+import picocli.CommandLine;
+
+/**
+ * What a new user and a hostile tester hit: each test is one reproduction, named for the bug, with the
+ * command that showed it. Every refusal must be one line on standard error and a non-zero exit.
+ */
+class HostileInputRegressionTest {
+    private record Run(int exit, String out, String err) {
+        List<String> errLines() {
+            return err.isEmpty() ? List.of() : List.of(err.split("\n"));
+        }
+    }
+
+    private static Run winnow(String... args) {
+        CommandLine cl = WinnowCli.commandLine();
+        StringWriter out = new StringWriter();
+        StringWriter err = new StringWriter();
+        cl.setOut(new PrintWriter(out, true));
+        cl.setErr(new PrintWriter(err, true));
+        int exit = cl.execute(args);
+        return new Run(exit, out.toString(), err.toString());
+    }
+
+    /** {@code java ... WinnowCli args} on this test's class path, as the launcher runs it. */
+    private static ProcessBuilder child(List<String> args) {
+        List<String> cmd = new ArrayList<>();
+        cmd.add(Path.of(System.getProperty("java.home"), "bin", "java").toString());
+        cmd.add("-cp");
+        cmd.add(System.getProperty("surefire.test.class.path", System.getProperty("java.class.path")));
+        cmd.add(WinnowCli.class.getName());
+        cmd.addAll(args);
+        return new ProcessBuilder(cmd);
+    }
+
+    /** {@code winnow hodge 4:5 > /dev/full} used to exit 0 with no message. */
+    @Test
+    void hodgeToAFullDeviceFailsInOneLine(@TempDir Path tmp) throws Exception {
+        File full = new File("/dev/full");
+        assumeTrue(full.exists(), "no /dev/full here");
+        Path err = tmp.resolve("err");
+        int exit = child(List.of("hodge", "4:5")).redirectOutput(full).redirectError(err.toFile()).start().waitFor();
+        assertEquals(Exit.STOPPED, exit);
+        assertEquals(List.of(CheckedOutput.STDOUT_FAILED), Files.readAllLines(err));
+    }
+
+    /**
+     * {@code winnow enumerate --dim 3 --max-rows 3 > small-tmpfs/e.txt} used to exit 0 with 143 of 331 lines.
+     * On a device that refuses every write the enumeration stops within a few thousand lines.
+     */
+    @Test
+    void enumerateToAFullDeviceStopsAndFailsInOneLine(@TempDir Path tmp) throws Exception {
+        File full = new File("/dev/full");
+        assumeTrue(full.exists(), "no /dev/full here");
+        Path err = tmp.resolve("err");
+        int exit = child(List.of("enumerate", "--dim", "3", "--max-rows", "3")).redirectOutput(full)
+                .redirectError(err.toFile()).start().waitFor();
+        assertEquals(Exit.STOPPED, exit);
+        List<String> lines = Files.readAllLines(err);
+        assertEquals(1, lines.size(), lines.toString());
+        assertTrue(lines.get(0).startsWith("winnow enumerate: cannot write standard output"), lines.get(0));
+    }
+
+    /** {@code enumerate --out} on a full disk used to leave a partial file under its final name. */
+    @Test
+    void aFailedOutFileLeavesTheOldFileAndNoTemporary(@TempDir Path tmp) throws Exception {
+        Path target = Files.writeString(tmp.resolve("e.txt"), "old content\n");
+        IOException e = assertThrows(IOException.class, () -> CheckedOutput.replace(target, w -> {
+            w.write("half of the new content\n".repeat(10_000));
+            throw new IOException("No space left on device");
+        }));
+        assertEquals("No space left on device", e.getMessage());
+        assertEquals("old content\n", Files.readString(target));
+        try (var s = Files.list(tmp)) {
+            assertEquals(List.of(target), s.toList(), "the temporary file is removed");
+        }
+        Run r = winnow("enumerate", "--dim", "3", "--max-rows", "2", "--out", tmp.resolve("ok.txt").toString());
+        assertEquals(0, r.exit(), r.err());
+        assertEquals(Files.readAllLines(tmp.resolve("ok.txt")).size(), Integer.parseInt(winnow("enumerate", "--dim",
+                "3", "--max-rows", "2", "--count").out().lines().filter(l -> l.startsWith("total: ")).findFirst()
+                .orElseThrow().substring(7)));
+    }
+
+    /**
+     * {@code winnow hodge --file - <&-} used to read whatever the JVM had opened as descriptor 0, print a
+     * million error lines and crash (exit 139).
+     */
+    @Test
+    void hodgeWithStandardInputClosedIsRefusedInOneLine(@TempDir Path tmp) throws Exception {
+        assumeTrue(new File("/proc/self/fd").isDirectory() && new File("/bin/sh").canExecute(), "Linux only");
+        List<String> cmd = new ArrayList<>(List.of("/bin/sh", "-c", "exec \"$@\" <&-", "sh"));
+        cmd.addAll(child(List.of("hodge", "--file", "-")).command());
+        Path err = tmp.resolve("err");
+        Process p = new ProcessBuilder(cmd).redirectOutput(tmp.resolve("out").toFile()).redirectError(err.toFile()).start();
+        assertTrue(p.waitFor(60, java.util.concurrent.TimeUnit.SECONDS), "no hang");
+        assertEquals(Exit.BAD_INPUT, p.exitValue());
+        List<String> lines = Files.readAllLines(err);
+        assertEquals(1, lines.size(), lines.size() + " lines, first: " + (lines.isEmpty() ? "" : lines.get(0)));
+        assertTrue(lines.get(0).startsWith("winnow hodge: standard input: standard input is closed"), lines.get(0));
+    }
+
+    /**
+     * One invalid UTF-8 byte used to make {@code invariants --file} refuse the whole file ("Input length = 1",
+     * no line number, zero results). Now that line is a bad line with its number and the rest is read.
+     */
+    @Test
+    void anInvalidUtf8ByteIsABadLineWithItsNumber(@TempDir Path tmp) throws Exception {
+        Path f = tmp.resolve("in.txt");
+        Files.write(f, new byte[] {'4', ':', '5', '\n', (byte) 0xFF, ':', '5', '\n', '2', ':', '3', '/', '2', ':', '3', '\n'});
+        for (String command : List.of("invariants", "hodge")) {
+            Run r = winnow(command, "--file", f.toString());
+            assertEquals(Exit.BAD_INPUT, r.exit(), command);
+            assertEquals(2, r.out().lines().count(), command + ": " + r.out());
+            assertEquals(1, r.errLines().size(), r.err());
+            assertTrue(r.err().contains(f + " line 2") && r.err().contains("not valid UTF-8"), r.err());
+        }
+    }
+
+    /** A 10 MB bad line used to be echoed whole to standard error. */
+    @Test
+    void aHugeBadLineIsCutInTheMessage(@TempDir Path tmp) throws Exception {
+        Path f = tmp.resolve("in.txt");
+        Files.writeString(f, "4:5\n" + "x".repeat(1_000_000) + "\n", StandardCharsets.UTF_8);
+        Run r = winnow("invariants", "--file", f.toString());
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(1, r.errLines().size());
+        assertTrue(r.err().length() < 400 && r.err().contains("... (1000000 characters)"), r.err());
+    }
+
+    /** Fullwidth digits used to be read as numbers ("degree sum 65253"). */
+    @Test
+    void fullwidthDigitsAreRefused() {
+        Run r = winnow("invariants", "4:\uFF15");
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertTrue(r.err().contains("U+FF15") && !r.err().contains("65253"), r.err());
+        assertEquals("", r.out());
+    }
+
+    /** {@code --threads 100000} used to be accepted and took 46 s and 5.8 GB for two lines. */
+    @Test
+    void threadsBeyondTheBoundAreRefused() {
+        Run r = winnow("hodge", "--threads", "100000", "4:5");
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(List.of("winnow hodge: " + Limits.threadsProblem(100_000)), r.errLines());
+        assertNotEquals(null, Limits.threadsProblem(Limits.maxThreads() + 1));
+        assertEquals(null, Limits.threadsProblem(Limits.maxThreads()));
+    }
+
+    /** {@code scan --input adir} used to say only "Is a directory". */
+    @Test
+    void scanInputThatIsADirectoryIsRefusedSayingSo(@TempDir Path tmp) {
+        Run r = winnow("scan", "--model", tmp.resolve("m.wnm").toString(), "--input", tmp.toString(), "--out",
+                tmp.resolve("o").toString());
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(List.of("winnow scan: --input " + tmp + ": is a directory; give a file of configurations, one a line"),
+                r.errLines());
+    }
+
+    /** A read-only or occupied output directory used to give only a path ({@code winnow scan: o/isfile}). */
+    @Test
+    void labelIntoADirectoryFailsInOneLine(@TempDir Path tmp) throws Exception {
+        Path in = Files.writeString(tmp.resolve("in.txt"), "4:5\n");
+        Path out = Files.createDirectory(tmp.resolve("out.tsv"));
+        Run r = winnow("label", "--in", in.toString(), "--out", out.toString());
+        assertNotEquals(0, r.exit());
+        assertEquals(1, r.errLines().size(), r.err());
+        assertTrue(r.err().startsWith("winnow label: " + out + ": "), r.err());
+    }
+
+    /** {@code novelty 2} and duplicate rules in a rules file used to lack the file and line. */
+    @Test
+    void rulesFileErrorsNameFileAndLine(@TempDir Path tmp) throws Exception {
+        Path f = Files.writeString(tmp.resolve("rules.txt"), "keep h11=2..5\nnovelty 2\n");
+        RuleException e = assertThrows(RuleException.class, () -> RulesFile.read(f));
+        assertEquals(f + ":2: rule 'novelty 2': must be in (0, 1]", e.getMessage());
+        Files.writeString(f, "keep h11=2..5\n# a comment\nkeep h11=3..4\n");
+        e = assertThrows(RuleException.class, () -> RulesFile.read(f));
+        assertTrue(e.getMessage().startsWith(f + ":3: rule 'keep h11=3..4': h11 already has a range at " + f + ":1"),
+                e.getMessage());
+        Files.writeString(f, "min-confidence 0.5\nmin-confidence 0.7\n");
+        assertTrue(assertThrows(RuleException.class, () -> RulesFile.read(f)).getMessage().startsWith(f + ":2: "));
+        Files.write(f, new byte[] {'k', 'e', 'e', 'p', ' ', 'h', '1', '1', '=', (byte) 0xC3, '\n'});
+        assertTrue(assertThrows(RuleException.class, () -> RulesFile.read(f)).getMessage().startsWith(f + ":1: "));
+    }
+
+    /** The checked exit leaves a command's own code and a clean stream alone. */
+    @Test
+    void aCleanStreamKeepsTheCommandsExitCode() {
+        java.io.ByteArrayOutputStream sink = new java.io.ByteArrayOutputStream();
+        java.io.PrintStream ok = new java.io.PrintStream(sink, true);
+        java.io.ByteArrayOutputStream errBytes = new java.io.ByteArrayOutputStream();
+        java.io.PrintStream err = new java.io.PrintStream(errBytes, true);
+        assertEquals(2, CheckedOutput.exitCode(2, new PrintWriter(new StringWriter()), ok, err));
+        assertEquals(0, CheckedOutput.exitCode(0, new PrintWriter(new StringWriter()), ok, err));
+        assertFalse(errBytes.toString().contains("cannot"));
+    }
+}
