@@ -78,6 +78,11 @@ public final class ScanFiles {
                 throw new ScanDamagedException(file + ": unreadable " + what + ": not a JSON object");
             }
             ObjectNode object = (ObjectNode) tree;
+            JsonNode version = object.get("formatVersion");
+            if (version != null && version.isInt() && version.intValue() != FORMAT_VERSION) {
+                throw new ScanDamagedException(file + ": " + what + " of scan format " + version.intValue()
+                        + ", this version reads " + FORMAT_VERSION + "; scan into a fresh directory");
+            }
             JsonNode recorded = object.remove(CHECKSUM_FIELD);
             if (recorded == null || !recorded.isTextual()) {
                 throw new ScanDamagedException(file + ": unreadable " + what + ": no " + CHECKSUM_FIELD + " field");

@@ -11,6 +11,7 @@ import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.Limits;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.Evaluation;
@@ -81,6 +82,9 @@ public final class TrainCommand implements Callable<Integer> {
         PrintWriter stdout = spec.commandLine().getOut();
         Integer holdoutClass;
         TrainingOptions options;
+        if (Limits.threadsProblem(threads) != null) {
+            return Exit.badInput(err, "train", Limits.threadsProblem(threads));
+        }
         try {
             holdoutClass = ReferenceLoader.holdoutClass(holdout);
             Architecture shape = Architecture.defaults(dim);

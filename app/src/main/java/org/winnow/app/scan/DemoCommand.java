@@ -81,6 +81,7 @@ public final class DemoCommand implements Callable<Integer> {
         o.println("files: survivors in " + scanDir.resolve(ScanFiles.SURVIVORS) + "*, counts in "
                 + scanDir.resolve(ScanFiles.MANIFEST) + ", rejects with reasons in " + scanDir.resolve(ScanFiles.REJECTS) + "*");
         o.println("next: compute the survivors exactly with  winnow hodge --file <survivor file>");
+        o.println("      a page of the result with  winnow report " + out + " --out report.html");
         o.flush();
         return 0;
     }
