@@ -144,7 +144,8 @@ public final class TupleSurvey {
             TupleEstimate e = tuple.estimate(c, invariants.chi(c));
             products += e.product() ? 1 : 0;
             allProved += e.allProved() ? 1 : 0;
-            String method = e.method().replaceAll("\\(engine refused: .*\\)", "(engine refused)");
+            // Reasons name the matrix; group by their kind.
+            String method = e.method().replaceAll("\\((engine refused|refused|bounded): .*\\)", "($1)");
             methods.merge(method, 1L, Long::sum);
             KnownValue[] v = {e.h11(), e.h21(), e.h31(), e.h22()};
             long[] label = truth.get(c.toText());
