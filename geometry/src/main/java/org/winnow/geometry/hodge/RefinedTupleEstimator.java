@@ -87,6 +87,26 @@ public final class RefinedTupleEstimator {
     }
 
     /**
+     * The first page alone, without the engine: the cheapest tuple, for a scan that cannot afford the
+     * engine on the candidates whose Jacobian ranks are open (about 15% of the lossless four-folds up to
+     * 6 rows; docs/benchmarks.md). Every value still carries its basis: what the first page pins is
+     * PROVED, the rest BOUNDED by the first page's intervals; products are ESTIMATED (their blocks would
+     * need the engine).
+     */
+    public TupleEstimate estimateFirstPage(Configuration c, long chi) {
+        requireSupported(c);
+        firstPage.compute(c, chi);
+        if (firstPage.blocks() > 1) {
+            return guesses(c.dimension(), true, "product (first page only)");
+        }
+        if (!firstPage.applies()) {
+            return guesses(c.dimension(), false, "estimate");
+        }
+        Interval[] pages = {firstPage.h11(), firstPage.h21(), firstPage.h31(), firstPage.h22()};
+        return assemble(c.dimension(), chi, pages, "first page");
+    }
+
+    /**
      * The opt-in proof step: the estimate, and where it is not all proved, the Hodge engine with its
      * exact backend (the transferred Koszul complex), stopped after {@code budget}. Returns what is then
      * proved; when the budget ran out, the cheap estimate with "proof out of time" in its method, and
