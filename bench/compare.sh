@@ -86,10 +86,10 @@ awk -v s=$(( count / numpy_count > 0 ? count / numpy_count : 1 )) -v n="$numpy_c
 # field NAME FILE: the value of NAME=value on the first line of FILE that has it
 field() { grep -o "$2=[^ ]*" "$1" | head -1 | cut -d= -f2; }
 
-run_winnow() { # name threads file
-  say "compare: winnow scorer, $2 thread(s), $(wc -l < "$3") candidates"
+run_winnow() { # name threads file [warm-up passes]
+  say "compare: winnow scorer, $2 thread(s), $(wc -l < "$3") candidates${4:+, after $4 untimed pass(es)}"
   java "${java_opts[@]}" -cp "$bench" org.winnow.bench.ScorerThroughput --model "$model" --candidates "$3" \
-    --threads "$2" > "$work/$1.out"
+    --threads "$2" --warmups "${4:-0}" > "$work/$1.out"
   cat "$work/$1.out" >&2
 }
 run_numpy() { # name blas-threads file
@@ -103,6 +103,11 @@ run_numpy() { # name blas-threads file
 run_winnow winnow1 1 "$cands"
 run_winnow winnow2 2 "$cands"
 run_winnow winnow1-prefix 1 "$prefix"
+# The thread-count ratio once the JIT is done: a one-off run of 10^5 spends about half its CPU compiling
+# (cpu_split), which a long scan pays once. On at most 10^5 lines of the file (numpy's share in a full run).
+warm_file="$cands"; [ "$count" -gt 100000 ] && warm_file="$prefix"
+run_winnow winnow1-warm 1 "$warm_file" 1
+run_winnow winnow2-warm 2 "$warm_file" 1
 run_numpy numpy1 1 "$prefix"
 run_numpy numpy2 2 "$prefix"
 
@@ -113,14 +118,15 @@ e2e="not available"
 distinct="$work/candidates-$count-distinct.tsv"
 awk -F'\t' '!seen[$1]++' "$cands" > "$distinct"
 dcount=$(wc -l < "$distinct")
-scan_once() { # file -> "wall-seconds cpu-seconds" on stdout (cpu: user + system of the JVM process)
+scan_once() { # file [threads] -> "wall-seconds cpu-seconds" on stdout (cpu: user + system of the JVM process)
   rm -rf "$work/scan-out"
   local TIMEFORMAT='%R %U %S' t
   t=$( { time java "${java_opts[@]}" -jar "$winnow" scan --model "$model" --input "$1" --out "$work/scan-out" \
-    --threads 2 >"$work/scan.out" 2>&1 ; } 2>&1 ) || return 1
+    --threads "${2:-2}" >"$work/scan.out" 2>&1 ; } 2>&1 ) || return 1
   echo "$t" | awk '{ print $1, $2 + $3 }'
 }
 e2e_cpu="not available"
+e2e1="not available"
 if java -jar "$winnow" scan --help >/dev/null 2>&1; then
   if [ "$dcount" -eq "$count" ]; then
     cp "$work/winnow2.out" "$work/winnow2-distinct.out"   # every line distinct: the same run
@@ -138,6 +144,14 @@ if java -jar "$winnow" scan --help >/dev/null 2>&1; then
     e2e_cpu=$("$python" -c "print(f'{($dcount - 1000) / ($c_full - $c_small):.1f}')")
   else
     e2e="failed (see $work/scan.out)"
+  fi
+  say "compare: winnow scan end to end, 1 thread, $dcount distinct candidates"
+  if t_small=$(scan_once "$work/some-1000.tsv" 1) && t_full=$(scan_once "$distinct" 1); then
+    read -r w_small c_small <<< "$t_small"
+    read -r w_full c_full <<< "$t_full"
+    e2e1=$("$python" -c "print(f'{($dcount - 1000) / ($w_full - $w_small):.1f}')")
+  else
+    e2e1="failed (see $work/scan.out)"
   fi
 fi
 # Cluster mode: producer, 2 scorers and sink over a single-node broker on loopback, against
@@ -166,7 +180,9 @@ agree=no
 [ "$(grep '^comparable=' "$work/winnow1-prefix.out" | cut -d= -f2-)" = "$(grep '^histogram=' "$work/numpy1.out" | cut -d= -f2-)" ] && agree=yes
 
 W1=$(field "$work/winnow1.out" rate) W2=$(field "$work/winnow2.out" rate) \
-W1C=$(field "$work/winnow1.out" cpu_rate) W2C=$(field "$work/winnow2.out" cpu_rate) \
+W1W=$(field "$work/winnow1-warm.out" rate) W2W=$(field "$work/winnow2-warm.out" rate) \
+SPLIT1="$(grep '^cpu_split=' "$work/winnow1.out" | cut -d= -f2-)" SR=$(field "$work/forward.out" search_rate) \
+E2E1="$e2e1" W1C=$(field "$work/winnow1.out" cpu_rate) W2C=$(field "$work/winnow2.out" cpu_rate) \
 N1=$(field "$work/numpy1.out" rate) N2=$(field "$work/numpy2.out" rate) \
 N1C=$(field "$work/numpy1.out" cpu_rate) N2C=$(field "$work/numpy2.out" cpu_rate) \
 ER=$(field "$work/forward.out" estimate_rate) IR=$(field "$work/forward.out" invariants_rate) \
@@ -193,9 +209,12 @@ print(f"machine: {os.cpu_count()} cores, load average {e['LOAD']} (wall-clock ra
 print(f"{'run':34s} {'cand/s (wall)':>14s} {'cand/s (cpu)':>14s}")
 print(f"{'winnow scorer, 1 thread':34s} {w1:14.0f} {f('W1C'):14.0f}   ({e['COUNT']} candidates)")
 print(f"{'winnow scorer, 2 threads':34s} {w2:14.0f} {f('W2C'):14.0f}")
+print(f"{'winnow scorer, 1 thread, warm':34s} {f('W1W'):14.0f} {'':>14s}")
+print(f"{'winnow scorer, 2 threads, warm':34s} {f('W2W'):14.0f} {'':>14s}")
 print(f"{'numpy scorer, 1 BLAS thread':34s} {n1:14.0f} {f('N1C'):14.0f}   ({e['NCOUNT']} of them, even stride)")
 print(f"{'numpy scorer, 2 BLAS threads':34s} {n2:14.0f} {f('N2C'):14.0f}")
 print(f"{'winnow scan, end to end, 2 threads':34s} {e['E2E']:>14s} {e['E2EC']:>14s}   ({e['DCOUNT']} distinct candidates)")
+print(f"{'winnow scan, end to end, 1 thread':34s} {e['E2E1']:>14s}")
 print(f"{'winnow scorer, 2 threads, distinct':34s} {f('W2D'):14.0f} {f('W2DC'):14.0f}")
 print(f"forward pass: {f('FM'):.0f} multiply-adds per candidate, {f('FR'):.0f} candidates per cpu-second alone"
       f" (features with the anchor, and network), {fwd_flops / 1e9:.2f} GFLOP/s; without the anchor's time"
@@ -209,11 +228,30 @@ print(f"FMA limit (cpu time, one core): vector {f('VF') / 1e9:.1f} GFLOP/s, scal
       f" JMH wall clock vector {f('VFW') / 1e9:.1f}")
 print()
 print("summary:")
+print(f"load average: {e['LOAD']}")
 print(f"winnow/numpy (1 thread): {w1 / n1:.2f}")
 print(f"winnow/numpy (2 threads): {w2 / n2:.2f}")
 print(f"winnow/numpy (1 thread, cpu time): {f('W1C') / f('N1C'):.2f}")
 print(f"winnow/numpy (2 threads, cpu time): {f('W2C') / f('N2C'):.2f}")
 print(f"winnow 2 threads/1 thread: {w2 / w1:.2f}")
+print(f"winnow 2 threads/1 thread (warm): {f('W2W') / f('W1W'):.2f}")
+try:
+    print(f"end-to-end 2 threads/1 thread: {float(e['E2E']) / float(e['E2E1']):.2f}")
+except ValueError:
+    print(f"end-to-end 2 threads/1 thread: {e['E2E']} / {e['E2E1']}")
+split = dict((k, float(v)) for k, v in (kv.split(':') for kv in e['SPLIT1'].split(','))) if ':' in e['SPLIT1'] else {}
+for kind in ("workers", "jit", "gc", "reader", "vm", "other"):
+    if split:
+        print(f"cpu share of the 1-thread scorer run/{kind}: {split.get(kind, 0.0) / sum(split.values()):.2f}")
+# One thread, CPU time, pre-parsed candidates (ForwardPassCost): the anchor alone, the forward pass with a
+# one-point reference (features, anchor, network) less the anchor, the model's search alone on the
+# candidates' embeddings, and what the whole score adds beyond those (the vote, novelty).
+us = lambda rate: 1e6 / rate
+print(f"cost per candidate/invariants (us, cpu): {us(f('IR')):.2f}")
+print(f"cost per candidate/anchor (us, cpu): {us(f('AR')):.2f}")
+print(f"cost per candidate/network and features (us, cpu): {us(f('FR')) - us(f('AR')):.2f}")
+print(f"cost per candidate/search (us, cpu): {us(f('SR')):.2f}")
+print(f"cost per candidate/vote and the rest (us, cpu): {us(f('RR')) - us(f('FR')) - us(f('SR')):.2f}")
 try:
     print(f"end-to-end/scorer: {float(e['E2E']) / f('W2D'):.2f}")
 except ValueError:

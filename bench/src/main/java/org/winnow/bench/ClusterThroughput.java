@@ -138,18 +138,20 @@ public final class ClusterThroughput implements Callable<Integer> {
         ModelScoring scoring = new ModelScoring(model);
         ExecutorService threads = Executors.newFixedThreadPool(scorers + 1);
         long t1 = System.nanoTime();
+        Timeline timeline = new Timeline(t1);
         Future<?> producer = threads.submit(() -> ClusterProducer.run(new ClusterProducer.Settings(kafka, run,
                 TopicLayout.singleBroker(Math.max(scorers, 1) * 2), new InputFileSource(input), input.toString(),
                 BadInputPolicy.SKIP, 2000, form), new SimpleMeterRegistry()));
         List<ClusterScorer> joined = new ArrayList<>();
         for (int i = 0; i < scorers; i++) {
-            ClusterScorer s = join(kafka, run, "s" + i, scoring, rules);
+            ClusterScorer s = join(kafka, run, "s" + i, scoring, rules, timeline);
             joined.add(s);
             threads.submit(s::run);
         }
         Manifest cluster = ClusterSink.run(kafka, run, dir.resolve("cluster-" + form.text()), new SinkOptions(),
                 Clock.systemUTC(), new SimpleMeterRegistry(), new AtomicBoolean(true));
         double clusterSeconds = (System.nanoTime() - t1) / 1e9;
+        double joinedAt = (timeline.joined.get() - t1) / 1e9;
         producer.get();
         joined.forEach(ClusterScorer::stop);
         threads.shutdown();
@@ -162,6 +164,11 @@ public final class ClusterThroughput implements Callable<Integer> {
         System.out.printf("cluster (%d sc., %s rejects)  %.1f s  %.0f candidates/s  (%.2f of scan)%n", scorers,
                 form.text(), clusterSeconds, candidates / clusterSeconds,
                 candidates / clusterSeconds / (scan.counts().candidates() / scanSeconds));
+        // Where a short run's time goes: until every scorer joined the run (it exists once the producer
+        // created it), until the first scored batch was committed, until the last, and the sink's end.
+        System.out.printf(java.util.Locale.ROOT, "cluster timeline  scorers joined %.2f s, first scored batch committed %.2f s,"
+                + " last %.2f s (%d batches), sink complete %.2f s%n", joinedAt, timeline.first(), timeline.last(),
+                timeline.batches.get(), clusterSeconds);
         System.out.printf("bytes/candidate  candidates topic %.1f, scored topic %.1f%n",
                 sizes.get(run.candidates()) / (double) candidates, sizes.get(run.scored()) / (double) candidates);
         joined.forEach(ClusterScorer::close);
@@ -171,13 +178,44 @@ public final class ClusterThroughput implements Callable<Integer> {
     }
 
     /** Joins once the producer has created the run; until then the run is refused. */
+    /** When the scorers joined and committed their batches, in nanoseconds on the bench's clock. */
+    private static final class Timeline implements ExactlyOnceRelay.Listener {
+        final long start;
+        final java.util.concurrent.atomic.AtomicLong joined = new java.util.concurrent.atomic.AtomicLong();
+        final java.util.concurrent.atomic.AtomicLong firstCommit = new java.util.concurrent.atomic.AtomicLong(Long.MAX_VALUE);
+        final java.util.concurrent.atomic.AtomicLong lastCommit = new java.util.concurrent.atomic.AtomicLong();
+        final java.util.concurrent.atomic.AtomicInteger batches = new java.util.concurrent.atomic.AtomicInteger();
+
+        Timeline(long start) {
+            this.start = start;
+        }
+
+        @Override
+        public void committed(int inputs, int outputs) {
+            long now = System.nanoTime();
+            firstCommit.accumulateAndGet(now, Math::min);
+            lastCommit.accumulateAndGet(now, Math::max);
+            batches.incrementAndGet();
+        }
+
+        double first() {
+            return firstCommit.get() == Long.MAX_VALUE ? Double.NaN : (firstCommit.get() - start) / 1e9;
+        }
+
+        double last() {
+            return lastCommit.get() == 0 ? Double.NaN : (lastCommit.get() - start) / 1e9;
+        }
+    }
+
     private static ClusterScorer join(KafkaSettings kafka, RunTopics run, String name, ModelScoring scoring,
-            KeepRules rules) throws InterruptedException {
+            KeepRules rules, Timeline timeline) throws InterruptedException {
         long deadline = System.nanoTime() + Duration.ofSeconds(60).toNanos();
         while (true) {
             try {
-                return ClusterScorer.join(kafka, run, name, scoring, rules, new SimpleMeterRegistry(),
-                        ExactlyOnceRelay.Listener.NONE);
+                ClusterScorer s = ClusterScorer.join(kafka, run, name, scoring, rules, new SimpleMeterRegistry(),
+                        timeline);
+                timeline.joined.accumulateAndGet(System.nanoTime(), Math::max);
+                return s;
             } catch (org.winnow.kafka.ClusterRefusedException e) {
                 if (System.nanoTime() > deadline) {
                     throw e;

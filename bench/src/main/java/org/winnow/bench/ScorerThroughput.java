@@ -5,6 +5,7 @@ import java.io.BufferedWriter;
 import com.sun.management.OperatingSystemMXBean;
 import java.io.IOException;
 import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -35,10 +36,17 @@ import picocli.CommandLine.Option;
  *
  * <p>Prints one line {@code candidates=N seconds=S rate=R cpu_seconds=C cpu_rate=Q} (wall clock, and
  * the CPU time of the whole process: workers, reader, JIT and GC, which is what a shared machine
- * does not distort much), the histogram of predicted h11, the candidates per source of the anchor
+ * does not distort much), then where that CPU time went: {@code cpu_split=} per kind of thread
+ * (workers, the reader, the JIT compilers, GC, VM threads; {@link ThreadCpu}) and {@code worker_split=}
+ * the workers' own time by step (parsing the line, scoring, tallying), each over the timed pass only.
+ * Then the histogram of predicted h11, the candidates per source of the anchor
  * ({@link RefinedH11Estimator.Source}: the first page, or the Hodge engine where the first page is
  * unsettled) and the histogram that a scorer deferring the unsettled candidates prints (those as -1,
  * as the numpy port does), so that a driver can check that both scorers agree on the whole file.
+ *
+ * <p>With {@code --warmups N} the file is scored N times untimed first: a one-off run spends a good
+ * part of its CPU in the JIT compilers (docs/benchmarks.md), which a long scan pays once, so the warm
+ * rate is the one to compare thread counts by.
  */
 @Command(name = "scorer-throughput", mixinStandardHelpOptions = true)
 public final class ScorerThroughput implements Callable<Integer> {
@@ -53,6 +61,11 @@ public final class ScorerThroughput implements Callable<Integer> {
 
     @Option(names = "--threads", defaultValue = "1", description = "Worker threads (default ${DEFAULT-VALUE}).")
     int threads;
+
+    @Option(names = "--warmups", defaultValue = "0",
+            description = "Untimed passes over the file before the timed one, so that the timed one runs JIT-compiled code"
+                    + " (default ${DEFAULT-VALUE}: the timed pass includes the JIT's work, as a one-off run does).")
+    int warmups;
 
     @Option(names = "--predictions", description = "Also write the predicted h11 of every line, in order (1 thread only).")
     Path predictions;
@@ -69,14 +82,34 @@ public final class ScorerThroughput implements Callable<Integer> {
             return 0;
         }
         OperatingSystemMXBean os = (OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean();
-        long cpuStart = os.getProcessCpuTime();
-        long start = System.nanoTime();
-        Tally tally = run(m);
-        double seconds = (System.nanoTime() - start) / 1e9;
-        double cpu = (os.getProcessCpuTime() - cpuStart) / 1e9;
-        long n = tally.predicted.values().stream().mapToLong(Long::longValue).sum();
-        System.out.printf("candidates=%d seconds=%.3f rate=%.1f cpu_seconds=%.3f cpu_rate=%.1f%n", n, seconds,
-                n / seconds, cpu, n / cpu);
+        ExecutorService pool = Executors.newFixedThreadPool(threads, r -> new Thread(r, "scorer-worker"));
+        try {
+            for (int round = 0; round < warmups; round++) {
+                run(m, pool);
+            }
+            ThreadCpu before = ThreadCpu.snapshot();
+            long cpuStart = os.getProcessCpuTime();
+            long start = System.nanoTime();
+            Tally tally = run(m, pool);
+            double seconds = (System.nanoTime() - start) / 1e9;
+            double cpu = (os.getProcessCpuTime() - cpuStart) / 1e9;
+            ThreadCpu after = ThreadCpu.snapshot();
+            long n = tally.predicted.values().stream().mapToLong(Long::longValue).sum();
+            System.out.printf("candidates=%d seconds=%.3f rate=%.1f cpu_seconds=%.3f cpu_rate=%.1f%n", n, seconds,
+                    n / seconds, cpu, n / cpu);
+            // Every CPU-second of the timed run by thread kind, and the workers' own time by step.
+            System.out.println("cpu_split=" + ThreadCpu.format(after.since(before, ThreadCpu.hotspot(
+                    name -> name.equals("scorer-worker") ? "workers" : name.equals("main") || name.equals("java") ? "reader" : null))));
+            System.out.printf(Locale.ROOT, "worker_split=parse:%.3f,score:%.3f,tally:%.3f%n", tally.parseNanos / 1e9,
+                    tally.scoreNanos / 1e9, tally.tallyNanos / 1e9);
+            print(tally);
+        } finally {
+            pool.shutdownNow();
+        }
+        return 0;
+    }
+
+    private static void print(Tally tally) {
         System.out.println("histogram=" + tally.predicted);
         System.out.println("comparable=" + tally.comparable);
         StringBuilder sources = new StringBuilder("sources=");
@@ -85,7 +118,6 @@ public final class ScorerThroughput implements Callable<Integer> {
                     .append(tally.sources[source.ordinal()]);
         }
         System.out.println(sources);
-        return 0;
     }
 
     /** Per worker, then summed: predicted h11, the deferring scorer's view, and the anchor's sources. */
@@ -93,8 +125,14 @@ public final class ScorerThroughput implements Callable<Integer> {
         final Map<Integer, Long> predicted = new TreeMap<>();
         final Map<Integer, Long> comparable = new TreeMap<>();
         final long[] sources = new long[RefinedH11Estimator.Source.values().length];
+        long parseNanos;
+        long scoreNanos;
+        long tallyNanos;
 
         void add(Tally o) {
+            parseNanos += o.parseNanos;
+            scoreNanos += o.scoreNanos;
+            tallyNanos += o.tallyNanos;
             o.predicted.forEach((k, v) -> predicted.merge(k, v, Long::sum));
             o.comparable.forEach((k, v) -> comparable.merge(k, v, Long::sum));
             for (int i = 0; i < sources.length; i++) {
@@ -103,11 +141,10 @@ public final class ScorerThroughput implements Callable<Integer> {
         }
     }
 
-    private Tally run(FrozenModel m) throws IOException, InterruptedException, ExecutionException {
+    private Tally run(FrozenModel m, ExecutorService pool) throws IOException, InterruptedException, ExecutionException {
         BlockingQueue<String[]> queue = new ArrayBlockingQueue<>(2 * threads + 2);
-        ExecutorService pool = Executors.newFixedThreadPool(threads);
         List<Future<Tally>> results = new ArrayList<>();
-        try {
+        {
             for (int t = 0; t < threads; t++) {
                 results.add(pool.submit(() -> work(m.newPredictor(), queue)));
             }
@@ -136,26 +173,46 @@ public final class ScorerThroughput implements Callable<Integer> {
                 total.add(f.get());
             }
             return total;
-        } finally {
-            pool.shutdownNow();
         }
     }
 
     private static Tally work(Predictor p, BlockingQueue<String[]> queue) throws InterruptedException {
         Tally tally = new Tally();
+        ThreadMXBean cpu = ManagementFactory.getThreadMXBean();
+        org.winnow.geometry.Configuration[] configs = new org.winnow.geometry.Configuration[BLOCK];
+        long[] chis = new long[BLOCK];
+        int[] h11s = new int[BLOCK];
+        byte[] sourceOf = new byte[BLOCK];
+        // Per block: parse it all, score it all, tally it all, each step timed on this thread's CPU clock,
+        // so that the split says what a worker's time went to without a clock read per candidate.
         while (true) {
             String[] block = queue.take();
             if (block == END) {
                 break;
             }
-            for (String line : block) {
-                CandidateLine c = CandidateLine.parse(line, 0);
-                int h11 = p.score(c.config(), c.chi());
-                RefinedH11Estimator.Source source = p.estimateSource();
+            long t0 = cpu.getCurrentThreadCpuTime();
+            for (int i = 0; i < block.length; i++) {
+                CandidateLine c = CandidateLine.parse(block[i], 0);
+                configs[i] = c.config();
+                chis[i] = c.chi();
+            }
+            long t1 = cpu.getCurrentThreadCpuTime();
+            for (int i = 0; i < block.length; i++) {
+                h11s[i] = p.score(configs[i], chis[i]);
+                sourceOf[i] = (byte) p.estimateSource().ordinal();
+            }
+            long t2 = cpu.getCurrentThreadCpuTime();
+            for (int i = 0; i < block.length; i++) {
+                int h11 = h11s[i];
+                RefinedH11Estimator.Source source = RefinedH11Estimator.Source.values()[sourceOf[i]];
                 tally.predicted.merge(h11, 1L, Long::sum);
                 tally.comparable.merge(source == RefinedH11Estimator.Source.FIRST_PAGE ? h11 : -1, 1L, Long::sum);
                 tally.sources[source.ordinal()]++;
             }
+            long t3 = cpu.getCurrentThreadCpuTime();
+            tally.parseNanos += t1 - t0;
+            tally.scoreNanos += t2 - t1;
+            tally.tallyNanos += t3 - t2;
         }
         return tally;
     }

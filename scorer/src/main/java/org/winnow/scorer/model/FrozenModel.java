@@ -272,7 +272,11 @@ public final class FrozenModel {
         return network;
     }
 
-    NeighbourIndex index() {
+    /**
+     * The neighbour index over the reference embeddings that every predictor searches (read-only and
+     * thread-safe; public so that benchmarks can time the search alone).
+     */
+    public NeighbourIndex index() {
         return index;
     }
 

@@ -89,6 +89,46 @@ class AnchoredIndexTest {
     }
 
     @Test
+    void findsExactlyWhatTheFlatScanFindsWhenSlabsAreSkipped() {
+        // Groups of hundreds to thousands of clustered points with a small k, so that most slabs lie
+        // beyond the k-th distance along the sorting axis and are skipped; the axis values repeat across
+        // slab edges (a coarse grid on the widest coordinate) and queries sit exactly on those values, so
+        // the edge tests meet equal gaps and equal distances. Also one stored coordinate (dimension 2)
+        // and the anchor alone (dimension 1).
+        SplittableRandom rng = new SplittableRandom(2026);
+        for (int round = 0; round < 8; round++) {
+            int dim = round < 2 ? round + 1 : 3 + rng.nextInt(7);
+            int n = 300 + rng.nextInt(4000);
+            int groups = 1 + rng.nextInt(4);
+            double[] p = new double[n * dim];
+            for (int i = 0; i < n; i++) {
+                for (int d = 0; d < dim - 1; d++) {
+                    double spread = d == 0 ? 1.0 : 0.2;
+                    p[i * dim + d] = d == 0 && round % 2 == 0 ? rng.nextInt(-20, 21) * 0.05
+                            : rng.nextGaussian() * spread;
+                }
+                p[i * dim + dim - 1] = rng.nextInt(groups);
+            }
+            FlatIndex flat = new FlatIndex(p, dim);
+            AnchoredIndex anchored = new AnchoredIndex(p, dim);
+            for (int query = 0; query < 300; query++) {
+                double[] q = new double[dim];
+                if (query % 3 == 0) {
+                    System.arraycopy(p, rng.nextInt(n) * dim, q, 0, dim); // on a point, hence on a slab's values
+                } else {
+                    for (int d = 0; d < dim - 1; d++) {
+                        q[d] = rng.nextGaussian() * (d == 0 ? 1.5 : 0.25);
+                    }
+                    q[dim - 1] = rng.nextInt(-1, groups + 1);
+                }
+                int k = 1 + rng.nextInt(query % 7 == 0 ? 80 : 8);
+                int exclude = rng.nextBoolean() ? -1 : rng.nextInt(n);
+                compare(flat, anchored, q, k, exclude);
+            }
+        }
+    }
+
+    @Test
     void findsEveryPointWhenAskedForMoreThanThereAre() {
         SplittableRandom rng = new SplittableRandom(3);
         double[] p = points(rng, 90, 4);
