@@ -157,7 +157,7 @@ final class SlabGroup {
             if (found == k && g > distance[k - 1]) {
                 break; // both sides are at least this far, and only get farther
             }
-            if (gl <= gr) {
+            if (left >= 0 && (right >= count || gl <= gr)) {
                 found = scan(left--, query, k, exclude, index, distance, found, tail, scratch);
             } else {
                 found = scan(right++, query, k, exclude, index, distance, found, tail, scratch);
