@@ -7,7 +7,7 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
-import org.winnow.app.WinnowCli;
+import org.winnow.app.cli.WinnowCli;
 
 /**
  * Where the CPU time of one {@code winnow scan} goes, by thread: the source (read, parse, validate,
