@@ -15,7 +15,8 @@ import org.winnow.app.cli.WinnowCli;
  * (format, write, checkpoints), the JIT compilers, GC and the rest of the VM. The scan runs in this
  * JVM through the ordinary command line, optionally after an untimed warm-up scan of the same
  * arguments (to a directory of its own), so that the split can be read with and without the JIT's
- * one-off work. Linux only ({@link ThreadCpu}).
+ * one-off work. The scan's threads end with it, so their time is followed by a {@link ThreadCpu.Tracker}
+ * reading every 100 ms (the tracker's own time is shown apart). Linux only ({@link ThreadCpu}).
  *
  * <p>Usage: {@code ScanCpuSplit [--warmup] SCAN-ARGUMENTS...} with every argument of {@code winnow scan}
  * but {@code --out}, which this tool sets. Prints the scan's own output, then one line
@@ -35,18 +36,19 @@ public final class ScanCpuSplit {
         com.sun.management.OperatingSystemMXBean os =
                 (com.sun.management.OperatingSystemMXBean) ManagementFactory.getOperatingSystemMXBean();
         ThreadCpu before = ThreadCpu.snapshot();
+        ThreadCpu.Tracker tracker = new ThreadCpu.Tracker(100);
         long cpu0 = os.getProcessCpuTime();
         long t0 = System.nanoTime();
         Path out = dir.resolve("timed");
         run(scan, out);
         double wall = (System.nanoTime() - t0) / 1e9;
         double cpu = (os.getProcessCpuTime() - cpu0) / 1e9;
-        ThreadCpu after = ThreadCpu.snapshot();
+        ThreadCpu after = tracker.stop();
         long candidates = org.winnow.sink.Manifest.read(out.resolve(org.winnow.sink.ScanFiles.MANIFEST)).counts()
                 .candidates();
         Map<String, Double> split = after.since(before, ThreadCpu.hotspot(name -> name.startsWith("winnow-scorer")
                 ? "scorers" : name.equals("winnow-source") ? "source" : name.equals("winnow-sink") ? "sink"
-                : name.equals("main") || name.equals("java") ? "main" : null));
+                : name.equals("main") || name.equals("java") ? "main" : name.equals("cpu-tracker") ? "tracker" : null));
         System.out.printf(Locale.ROOT, "wall_seconds=%.3f cpu_seconds=%.3f candidates=%d candidates_per_second=%.1f%n",
                 wall, cpu, candidates, candidates / wall);
         System.out.println("cpu_split=" + ThreadCpu.format(split));

@@ -96,6 +96,47 @@ final class ThreadCpu {
         };
     }
 
+    /**
+     * Follows the threads of a run that start and end inside it (a scan's source, workers and sink): a
+     * daemon thread takes a snapshot every {@code periodMillis} and keeps each thread's last reading, so a
+     * thread that ended counts with what it had used at the last reading before its end (at most one
+     * period's worth is lost per thread).
+     */
+    static final class Tracker implements AutoCloseable {
+        private final Map<Long, Sample> last = new java.util.concurrent.ConcurrentHashMap<>();
+        private final Thread poller;
+        private volatile boolean running = true;
+
+        Tracker(long periodMillis) {
+            poller = new Thread(() -> {
+                while (running) {
+                    last.putAll(snapshot().byTid);
+                    try {
+                        Thread.sleep(periodMillis);
+                    } catch (InterruptedException e) {
+                        return;
+                    }
+                }
+            }, "cpu-tracker");
+            poller.setDaemon(true);
+            poller.start();
+        }
+
+        /** Stops polling and returns every thread seen, with its last reading (a final one included). */
+        ThreadCpu stop() throws InterruptedException {
+            running = false;
+            poller.interrupt();
+            poller.join();
+            last.putAll(snapshot().byTid);
+            return new ThreadCpu(new TreeMap<>(last));
+        }
+
+        @Override
+        public void close() throws InterruptedException {
+            stop();
+        }
+    }
+
     /** {@code name:seconds,...} with three decimals, or {@code unavailable} when nothing was read. */
     static String format(Map<String, Double> split) {
         if (split.isEmpty()) {
