@@ -49,6 +49,11 @@ public final class EnumerateCommand implements Callable<Integer> {
     @Option(names = "--out", paramLabel = "F", description = "Write the matrices to F instead of standard output.")
     Path outFile;
 
+    @Option(names = "--threads", paramLabel = "N",
+            description = "Worker threads (default: the number of processors); the output is the same, byte for byte, "
+                    + "for any number.")
+    int threads = Runtime.getRuntime().availableProcessors();
+
     @Override
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
@@ -58,12 +63,17 @@ public final class EnumerateCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             return Exit.badInput(err, "enumerate", e.getMessage());
         }
+        if (threads < 1) {
+            err.println("winnow enumerate: --threads must be at least 1, got " + threads);
+            err.flush();
+            return WinnowCli.EXIT_BAD_INPUT;
+        }
         Bounds bounds = es.bounds();
         RuleSet ruleSet = es.rules();
         ShardSpec shardSpec = es.shard();
         Enumerator enumerator = new Enumerator();
         if (count) {
-            EnumerationCounts c = enumerator.count(bounds, ruleSet, shardSpec);
+            EnumerationCounts c = enumerator.count(bounds, ruleSet, shardSpec, threads, () -> false);
             PrintWriter out = spec.commandLine().getOut();
             for (int m = bounds.minRows(); m <= bounds.maxRows(); m++) {
                 out.println("rows=" + m + ": " + c.rows(m));
@@ -75,13 +85,13 @@ public final class EnumerateCommand implements Callable<Integer> {
         try (ProgressBar progress = progressBar()) {
             if (outFile == null) {
                 PrintWriter out = spec.commandLine().getOut();
-                write(enumerator, bounds, ruleSet, shardSpec, out, progress, () -> CheckedOutput.failed(out));
+                write(enumerator, bounds, ruleSet, shardSpec, threads, out, progress, () -> CheckedOutput.failed(out));
                 if (CheckedOutput.failed(out)) {
                     throw new IOException("cannot write standard output (disk full, closed pipe or device error)");
                 }
             } else {
                 // Through a temporary name: a full disk must not leave a partial list under the final name.
-                CheckedOutput.replace(outFile, w -> write(enumerator, bounds, ruleSet, shardSpec, w, progress,
+                CheckedOutput.replace(outFile, w -> write(enumerator, bounds, ruleSet, shardSpec, threads, w, progress,
                         () -> false));
             }
         } catch (IOException | UncheckedIOException e) {
@@ -97,10 +107,11 @@ public final class EnumerateCommand implements Callable<Integer> {
     /** How often (in lines) standard output is checked for a failed write, which a PrintWriter only remembers. */
     private static final int CHECK_EVERY = 4096;
 
-    private static void write(Enumerator enumerator, Bounds bounds, RuleSet ruleSet, ShardSpec shardSpec, Writer w,
+    private static void write(Enumerator enumerator, Bounds bounds, RuleSet ruleSet, ShardSpec shardSpec, int threads,
+            Writer w,
             ProgressBar progress, java.util.function.BooleanSupplier failed) throws IOException {
         long[] lines = {0};
-        enumerator.run(bounds, ruleSet, shardSpec, e -> {
+        enumerator.run(bounds, ruleSet, shardSpec, threads, e -> {
             try {
                 w.write(e.toLine());
                 w.write('\n');

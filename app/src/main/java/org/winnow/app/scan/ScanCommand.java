@@ -87,6 +87,11 @@ public final class ScanCommand implements Callable<Integer> {
     @Option(names = "--threads", paramLabel = "N", description = "Scorer threads (default: the number of processors).")
     Integer threads;
 
+    @Option(names = "--enumerate-threads", paramLabel = "N",
+            description = "With bounds: enumeration threads (default: the number of processors); the candidates and "
+                    + "their order do not depend on it.")
+    Integer enumerateThreads;
+
     @picocli.CommandLine.Mixin
     MetricsPortOption metrics = new MetricsPortOption();
 
@@ -176,6 +181,9 @@ public final class ScanCommand implements Callable<Integer> {
         if (threads != null && Limits.threadsProblem(threads) != null) {
             throw new StartupException(Limits.threadsProblem(threads));
         }
+        if (enumerateThreads != null && enumerateThreads < 1) {
+            throw new StartupException("--enumerate-threads must be at least 1, got " + enumerateThreads);
+        }
         if (queue < 1) {
             throw new StartupException("--queue must be at least 1, got " + queue);
         }
@@ -202,7 +210,8 @@ public final class ScanCommand implements Callable<Integer> {
             } catch (IllegalArgumentException e) {
                 throw new StartupException(e.getMessage());
             }
-            source = new EnumerationSource(enumerated, EnumerationSource.COUNT_BUDGET, System::nanoTime);
+            source = new EnumerationSource(enumerated, EnumerationSource.COUNT_BUDGET, System::nanoTime,
+                    enumerateThreads != null ? enumerateThreads : Runtime.getRuntime().availableProcessors());
         } else {
             if (Files.isDirectory(input)) {
                 throw new StartupException("--input " + input + ": is a directory; give a file of configurations, "

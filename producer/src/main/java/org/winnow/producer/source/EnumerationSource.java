@@ -24,16 +24,27 @@ public final class EnumerationSource implements CandidateSource {
     private final EnumeratedSpace space;
     private final Duration countBudget;
     private final LongSupplier nanoTime;
+    private final int threads;
     private final Enumerator enumerator = new Enumerator();
+
+    /** A source that enumerates on the calling thread. */
+    public EnumerationSource(EnumeratedSpace space, Duration countBudget, LongSupplier nanoTime) {
+        this(space, countBudget, nanoTime, 1);
+    }
 
     /**
      * @param countBudget how long {@link #size()} may take
      * @param nanoTime    the clock that budget is measured on
+     * @param threads     enumeration worker threads; the order of the candidates is the same for any number
      */
-    public EnumerationSource(EnumeratedSpace space, Duration countBudget, LongSupplier nanoTime) {
+    public EnumerationSource(EnumeratedSpace space, Duration countBudget, LongSupplier nanoTime, int threads) {
         this.space = Objects.requireNonNull(space, "space");
         this.countBudget = Objects.requireNonNull(countBudget, "countBudget");
         this.nanoTime = Objects.requireNonNull(nanoTime, "nanoTime");
+        if (threads < 1) {
+            throw new IllegalArgumentException("enumeration threads must be at least 1, got " + threads);
+        }
+        this.threads = threads;
     }
 
     /** Carries the listener's interruption out of the enumerator's consumer, which cannot throw it. */
@@ -48,7 +59,7 @@ public final class EnumerationSource implements CandidateSource {
     @Override
     public void run(SourceListener out) throws InterruptedException {
         try {
-            enumerator.run(space.bounds(), space.rules(), space.shard(), e -> {
+            enumerator.run(space.bounds(), space.rules(), space.shard(), threads, e -> {
                 try {
                     out.item(e.configuration(), e.text());
                 } catch (InterruptedException x) {
@@ -57,6 +68,11 @@ public final class EnumerationSource implements CandidateSource {
             });
         } catch (Interrupted e) {
             throw (InterruptedException) e.getCause();
+        } catch (CancellationException e) {
+            if (Thread.interrupted()) {
+                throw new InterruptedException("enumeration interrupted");
+            }
+            throw e;
         }
     }
 
