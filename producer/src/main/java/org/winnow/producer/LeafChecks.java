@@ -38,6 +38,14 @@ final class LeafChecks {
 
     /** The identity flags as a mask of {@link Flag#bit()}. */
     int flags(int[] n, int[][] q, int m, int k) {
+        return flags(n, q, m, k, 0);
+    }
+
+    /**
+     * The identity flags, except that Ek is not tested (and its bit not set) when a flag in {@code dropMask}
+     * already holds: the caller drops such a matrix anyway.
+     */
+    int flags(int[] n, int[][] q, int m, int k, int dropMask) {
         supports(q, m, k);
         int flags = 0;
         for (int j = 0; j < k; j++) {
@@ -64,6 +72,10 @@ final class LeafChecks {
         }
         if (!connected(m, k)) {
             flags |= Flag.BD.bit();
+        }
+        if ((flags & dropMask) != 0) {
+            // Dropped whatever Ek says: skip its b-matchings, the costliest check of a leaf.
+            return flags;
         }
         for (int a = 0; a < m; a++) {
             if (isZeroOne(q[a], k) && ineffectiveSplit(n, q, m, k, a)) {

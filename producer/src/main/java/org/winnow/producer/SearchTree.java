@@ -1,5 +1,6 @@
 package org.winnow.producer;
 
+import java.util.Arrays;
 import java.util.function.LongPredicate;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.canonical.CanonicalSearch;
@@ -25,6 +26,8 @@ final class SearchTree {
     private final RuleSet rules;
     private final LongPredicate owns;
     private final Leaf leaf;
+    /** The rule set drops Q3p, so a subtree under two equal P^1 rows has no leaf to emit. */
+    private final boolean pruneEqualP1Rows;
     private final CanonicalSearch canon = new CanonicalSearch();
     private final LeafChecks checks = new LeafChecks();
     private final int[][] q = new int[Configuration.MAX_ROWS][Configuration.MAX_COLS];
@@ -59,6 +62,7 @@ final class SearchTree {
         this.rules = rules;
         this.owns = owns;
         this.leaf = leaf;
+        this.pruneEqualP1Rows = rules.drops(Flag.Q3P.bit());
     }
 
     /** Rows placed and accepted so far (tree nodes below the ambient roots), for statistics. */
@@ -172,6 +176,10 @@ final class SearchTree {
 
     private void rowDone(int t) {
         int[] row = q[t];
+        if (pruneEqualP1Rows && n[t] == 1 && t > 0 && n[t - 1] == 1 && Arrays.equals(row, 0, k, q[t - 1], 0, k)) {
+            // Rows of one n are non-increasing, so equal P^1 rows are adjacent in every leaf below: all Q3p.
+            return;
+        }
         boolean big = n[t] >= 2;
         for (int j = 0; j < k; j++) {
             colSum[j] += row[j];
@@ -238,7 +246,7 @@ final class SearchTree {
         if (!checks.strictHall(n, q, m, k)) {
             return;
         }
-        int flags = checks.flags(n, q, m, k);
+        int flags = checks.flags(n, q, m, k, rules.excludedMask());
         if (!rules.drops(flags)) {
             leaf.accept(n, q, m, k, flags);
         }
