@@ -31,6 +31,7 @@ import picocli.CommandLine;
             VerifyCommand.class,
             InvariantsCommand.class,
             TrainCommand.class,
+            org.winnow.app.model.SampleCommand.class,
             EvaluateCommand.class,
             HodgeCommand.class,
             LabelCommand.class,

@@ -13,11 +13,13 @@ import org.winnow.scorer.model.ReferenceTsv;
 /**
  * Reads a reference file for the model commands: keeps the exact rows, computes each row's chi with
  * the exact invariant calculator, and counts rows whose labels contradict that chi (for a three-fold
- * {@code chi = 2(h11 - h21)}, for a four-fold {@code chi = 48 + 6(h11 - h21 + h31)}).
+ * {@code chi = 2(h11 - h21)}, for a four-fold {@code chi = 48 + 6(h11 - h21 + h31)}). Products (source
+ * {@code product}) are skipped and counted: their holonomy is smaller, those identities do not hold for them,
+ * and the model is built for manifolds of full holonomy.
  */
 final class ReferenceLoader {
     /** The exact examples, plus how many bounded rows were skipped and how many labels disagree with chi. */
-    record Loaded(List<LabelledExample> examples, int bounded, int inconsistent, String firstInconsistent) {}
+    record Loaded(List<LabelledExample> examples, int bounded, int inconsistent, String firstInconsistent, int products) {}
 
     /** A reference file that cannot be used; the message is one line naming the file. */
     static final class BadReference extends Exception {
@@ -43,11 +45,16 @@ final class ReferenceLoader {
         List<LabelledExample> out = new ArrayList<>();
         int bounded = 0;
         int inconsistent = 0;
+        int products = 0;
         String first = null;
         Integer dim = null;
         for (ReferenceTsv.Row r : rows) {
             if (!r.exact() || r.hodge() == null) {
                 bounded++;
+                continue;
+            }
+            if (r.source() == ReferenceTsv.Source.PRODUCT) {
+                products++;
                 continue;
             }
             Configuration c = r.config();
@@ -79,7 +86,7 @@ final class ReferenceLoader {
         if (out.isEmpty()) {
             throw new BadReference(path + ": no exact rows to use");
         }
-        return new Loaded(out, bounded, inconsistent, first);
+        return new Loaded(out, bounded, inconsistent, first, products);
     }
 
     /** Parses {@code h11=V}. */

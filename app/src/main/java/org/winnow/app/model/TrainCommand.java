@@ -122,8 +122,8 @@ public final class TrainCommand implements Callable<Integer> {
         StratifiedSplit split = StratifiedSplit.of(pool, fraction, minPerClass, seed);
         List<LabelledExample> rest = new ArrayList<>(split.rest());
         rest.addAll(heldOut);
-        err.printf(Locale.ROOT, "winnow train: %d exact rows (%d bounded skipped); training on %d, holding out %d%n",
-                loaded.examples().size(), loaded.bounded(), split.train().size(), rest.size());
+        err.printf(Locale.ROOT, "winnow train: %d exact rows (%d bounded, %d products skipped); training on %d, holding out"
+                + " %d%n", loaded.examples().size(), loaded.bounded(), loaded.products(), split.train().size(), rest.size());
         err.flush();
         long start = System.nanoTime();
         FrozenModel model;

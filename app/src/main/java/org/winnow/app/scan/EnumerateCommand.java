@@ -15,7 +15,6 @@ import me.tongfei.progressbar.ProgressBarBuilder;
 import org.winnow.app.cli.CheckedOutput;
 import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.Terminal;
-import org.winnow.app.cli.WinnowCli;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.EnumerationCounts;
 import org.winnow.producer.Enumerator;
@@ -64,9 +63,7 @@ public final class EnumerateCommand implements Callable<Integer> {
             return Exit.badInput(err, "enumerate", e.getMessage());
         }
         if (threads < 1) {
-            err.println("winnow enumerate: --threads must be at least 1, got " + threads);
-            err.flush();
-            return WinnowCli.EXIT_BAD_INPUT;
+            return Exit.badInput(err, "enumerate", "--threads must be at least 1, got " + threads);
         }
         Bounds bounds = es.bounds();
         RuleSet ruleSet = es.rules();

@@ -1,5 +1,6 @@
 package org.winnow.app.scan;
 
+import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.WinnowCli;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -52,7 +53,7 @@ class EnumerateCommandTest {
                     .reduce((a, b) -> b).orElseThrow());
         }
         Run bad = run("enumerate", "--dim", "3", "--threads", "0");
-        assertEquals(WinnowCli.EXIT_BAD_INPUT, bad.exit());
+        assertEquals(Exit.BAD_INPUT, bad.exit());
         assertEquals("winnow enumerate: --threads must be at least 1, got 0", bad.err().strip());
     }
 

@@ -1,0 +1,113 @@
+package org.winnow.app.model;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.nio.file.NoSuchFileException;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Set;
+import java.util.concurrent.Callable;
+import org.winnow.app.cli.Exit;
+import org.winnow.geometry.invariants.InvariantCalculator;
+import org.winnow.scorer.model.LabelledExample;
+import org.winnow.scorer.model.ReferenceTsv;
+import org.winnow.scorer.model.StratifiedSplit;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Model.CommandSpec;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+
+/**
+ * {@code winnow sample}: a stratified fraction of the exact rows of a reference file, drawn per h11 class
+ * as {@code train --labelled-fraction} draws its training set, written as a reference file of its own (the
+ * small labelled reference a model is shipped with). Rows are sorted by configuration before drawing, so
+ * the sample does not depend on the order of the input file (label writes in completion order). Products
+ * (source {@code product}) are left out unless {@code --products}: their holonomy is smaller and the
+ * identities the model relies on do not hold for them.
+ */
+@Command(name = "sample", mixinStandardHelpOptions = true,
+        description = {
+            "Write a stratified fraction of the exact rows of a reference file (per h11 class, at least",
+            "--min-per-class where the class has them), seeded; products are left out unless --products."})
+public final class SampleCommand implements Callable<Integer> {
+    @Spec
+    CommandSpec spec;
+
+    @Option(names = "--reference", required = true, paramLabel = "R.tsv", description = "Labelled reference file.")
+    Path reference;
+
+    @Option(names = "--out", required = true, paramLabel = "F.tsv", description = "Where to write the sample.")
+    Path out;
+
+    @Option(names = "--fraction", required = true, paramLabel = "f", description = "Fraction in (0, 1] of each class.")
+    double fraction;
+
+    @Option(names = "--min-per-class", defaultValue = "3", paramLabel = "N",
+            description = "At least this many per class where the class has them (default ${DEFAULT-VALUE}).")
+    int minPerClass;
+
+    @Option(names = "--seed", defaultValue = "1", paramLabel = "S", description = "Seed (default ${DEFAULT-VALUE}).")
+    long seed;
+
+    @Option(names = "--products", description = "Keep products (source product) in the pool.")
+    boolean products;
+
+    @Override
+    public Integer call() throws IOException {
+        PrintWriter err = spec.commandLine().getErr();
+        if (!(fraction > 0 && fraction <= 1)) {
+            return Exit.badInput(err, "sample", "--fraction must be in (0, 1], got " + fraction);
+        }
+        if (minPerClass < 0) {
+            return Exit.badInput(err, "sample", "--min-per-class must not be negative, got " + minPerClass);
+        }
+        List<ReferenceTsv.Row> rows;
+        try {
+            rows = ReferenceTsv.read(reference);
+        } catch (NoSuchFileException e) {
+            return Exit.badInput(err, "sample", reference + ": no such file");
+        } catch (IllegalArgumentException e) {
+            return Exit.badInput(err, "sample", reference + ": " + e.getMessage());
+        }
+        List<ReferenceTsv.Row> pool = new ArrayList<>();
+        int leftOut = 0;
+        for (ReferenceTsv.Row r : rows) {
+            if (!r.exact() || r.hodge() == null) {
+                continue;
+            }
+            if (r.source() == ReferenceTsv.Source.PRODUCT && !products) {
+                leftOut++;
+                continue;
+            }
+            pool.add(r);
+        }
+        pool.sort(Comparator.comparing(r -> r.config().toText()));
+        InvariantCalculator calc = new InvariantCalculator();
+        List<LabelledExample> examples = new ArrayList<>(pool.size());
+        for (ReferenceTsv.Row r : pool) {
+            examples.add(new LabelledExample(r.config(), calc.chi(r.config()), r.hodge()));
+        }
+        StratifiedSplit split = StratifiedSplit.of(examples, fraction, minPerClass, seed);
+        Set<String> chosen = new HashSet<>();
+        for (LabelledExample e : split.train()) {
+            chosen.add(e.config().toText());
+        }
+        List<ReferenceTsv.Row> sample = new ArrayList<>();
+        Set<Integer> classes = new HashSet<>();
+        for (ReferenceTsv.Row r : pool) {
+            if (chosen.contains(r.config().toText())) {
+                sample.add(r);
+                classes.add(r.hodge()[0]);
+            }
+        }
+        ReferenceTsv.write(out, sample);
+        err.printf(Locale.ROOT, "winnow sample: %d of %d exact rows (%d h11 classes), %d products left out%n", sample.size(),
+                pool.size(), classes.size(), leftOut);
+        err.flush();
+        return 0;
+    }
+}

@@ -1,0 +1,76 @@
+package org.winnow.app.model;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import java.io.IOException;
+import java.io.PrintWriter;
+import java.io.StringWriter;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import java.util.Map;
+import java.util.Random;
+import java.util.TreeMap;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.WinnowCli;
+import picocli.CommandLine;
+
+/** {@code winnow sample}: per-class counts, products left out, independent of the input order. */
+class SampleCommandTest {
+    private static int run(String... args) {
+        CommandLine cl = WinnowCli.commandLine();
+        cl.setOut(new PrintWriter(new StringWriter(), true));
+        cl.setErr(new PrintWriter(new StringWriter(), true));
+        return cl.execute(args);
+    }
+
+    @Test
+    void drawsEachClassLikeTrainingAndLeavesProductsOut(@TempDir Path dir) throws IOException {
+        Path all = dir.resolve("all.tsv");
+        assertEquals(0, run("label", "--dim", "3", "--max-rows", "3", "--out", all.toString()));
+        List<String> lines = Files.readAllLines(all);
+        Map<Integer, Integer> perClass = new TreeMap<>();
+        int products = 0;
+        for (String l : lines.subList(1, lines.size())) {
+            if (l.endsWith("\tproduct")) {
+                products++;
+                continue;
+            }
+            perClass.merge(Integer.parseInt(l.split("\t")[1]), 1, Integer::sum);
+        }
+        assertTrue(products > 0, "the space has products");
+        Path sample = dir.resolve("sample.tsv");
+        assertEquals(0, run("sample", "--reference", all.toString(), "--out", sample.toString(), "--fraction", "0.1",
+                "--min-per-class", "2", "--seed", "7"));
+        List<String> drawn = Files.readAllLines(sample);
+        assertEquals(lines.get(0), drawn.get(0));
+        Map<Integer, Integer> drawnPerClass = new TreeMap<>();
+        for (String l : drawn.subList(1, drawn.size())) {
+            assertTrue(lines.contains(l), l);
+            assertTrue(l.endsWith("\tcomputed"), l);
+            drawnPerClass.merge(Integer.parseInt(l.split("\t")[1]), 1, Integer::sum);
+        }
+        for (Map.Entry<Integer, Integer> e : perClass.entrySet()) {
+            int s = e.getValue();
+            assertEquals((int) Math.max(Math.round(0.1 * s), Math.min(2, s)), drawnPerClass.get(e.getKey()),
+                    "h11 = " + e.getKey());
+        }
+        // The same draw from the same rows in another order.
+        List<String> body = new ArrayList<>(lines.subList(1, lines.size()));
+        Collections.shuffle(body, new Random(3));
+        body.add(0, lines.get(0));
+        Path shuffled = dir.resolve("shuffled.tsv");
+        Files.write(shuffled, body);
+        Path again = dir.resolve("again.tsv");
+        assertEquals(0, run("sample", "--reference", shuffled.toString(), "--out", again.toString(), "--fraction", "0.1",
+                "--min-per-class", "2", "--seed", "7"));
+        assertEquals(drawn, Files.readAllLines(again));
+        assertEquals(Exit.BAD_INPUT, run("sample", "--reference", all.toString(), "--out", again.toString(), "--fraction",
+                "0"));
+    }
+}
