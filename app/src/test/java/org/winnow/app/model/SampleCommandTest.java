@@ -31,8 +31,10 @@ class SampleCommandTest {
 
     @Test
     void drawsEachClassLikeTrainingAndLeavesProductsOut(@TempDir Path dir) throws IOException {
+        Path space = dir.resolve("space.txt");
+        assertEquals(0, run("enumerate", "--dim", "3", "--max-rows", "3", "--out", space.toString()));
         Path all = dir.resolve("all.tsv");
-        assertEquals(0, run("label", "--dim", "3", "--max-rows", "3", "--out", all.toString()));
+        assertEquals(0, run("label", "--in", space.toString(), "--out", all.toString()));
         List<String> lines = Files.readAllLines(all);
         Map<Integer, Integer> perClass = new TreeMap<>();
         int products = 0;
