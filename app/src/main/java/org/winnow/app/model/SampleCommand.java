@@ -31,8 +31,9 @@ import picocli.CommandLine.Spec;
  */
 @Command(name = "sample", mixinStandardHelpOptions = true,
         description = {
-            "Write a stratified fraction of the exact rows of a reference file (per h11 class, at least",
-            "--min-per-class where the class has them), seeded; products are left out unless --products."})
+            "Write a seeded, stratified fraction of the exact rows of a reference file.",
+            "Each h11 class gives its fraction, at least --min-per-class where the class has them;",
+            "products are left out unless --products."})
 public final class SampleCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
