@@ -18,6 +18,8 @@ import java.util.Optional;
 public enum Keepable {
     H11(false),
     H21(false),
+    H31(false),
+    H22(false),
     CHI(true),
     ROWS(true),
     COLS(true),
@@ -65,7 +67,9 @@ public enum Keepable {
 
         static {
             for (Reason r : Reason.values()) {
-                r.invariant().ifPresent(k -> BY_INVARIANT.put(k, r));
+                if (!r.residue()) {
+                    r.invariant().ifPresent(k -> BY_INVARIANT.put(k, r));
+                }
             }
             for (Keepable k : values()) {
                 if (!BY_INVARIANT.containsKey(k)) {

@@ -24,26 +24,45 @@ public enum Reason {
     EXACT_BLOCKS_OUT_OF_RANGE(Keepable.BLOCKS),
     /** h^{1,1} is confidently predicted outside its keep range and the candidate looks familiar. */
     PREDICTED_H11_OUT_OF_RANGE(Keepable.H11),
+    /** The exact Euler characteristic does not leave the residue a rule asks for (such as chi%24=0). */
+    EXACT_CHI_WRONG_RESIDUE(Keepable.CHI, "exact-chi-wrong-residue"),
     /** h^{2,1} is confidently predicted outside its keep range and the candidate looks familiar. */
     PREDICTED_H21_OUT_OF_RANGE(Keepable.H21),
+    /** h^{3,1} is confidently predicted outside its keep range and the candidate looks familiar. */
+    PREDICTED_H31_OUT_OF_RANGE(Keepable.H31),
+    /** h^{2,2} is confidently predicted outside its keep range and the candidate looks familiar. */
+    PREDICTED_H22_OUT_OF_RANGE(Keepable.H22),
     /** Every exact and predicted invariant lies in its range. */
     KEPT_IN_RANGE("kept-in-range"),
     /** A prediction is outside its range, but the candidate is unlike the reference set. */
     KEPT_AS_NOVEL("kept-as-novel"),
     /** A prediction is outside its range, but with a confidence below the threshold. */
     KEPT_LOW_CONFIDENCE("kept-low-confidence"),
-    /** A rule names an invariant the model does not determine for this candidate. */
+    /**
+     * A rule names an invariant the model does not determine for this candidate, or one that a product's
+     * prediction gives only through identities of full holonomy, which fail for products.
+     */
     KEPT_UNDECIDED("kept-undecided");
 
     private final String code;
     private final Verdict verdict;
     private final Keepable invariant;
+    private final boolean residue;
 
     /** A keep. */
     Reason(String code) {
         this.code = code;
         this.verdict = Verdict.KEEP;
         this.invariant = null;
+        this.residue = false;
+    }
+
+    /** A rejection because {@code invariant} leaves the wrong residue (a residue rule, not a range). */
+    Reason(Keepable invariant, String code) {
+        this.code = code;
+        this.verdict = Verdict.REJECT;
+        this.invariant = invariant;
+        this.residue = true;
     }
 
     /** A rejection because {@code invariant} lies outside its range. */
@@ -51,6 +70,12 @@ public enum Reason {
         this.code = invariant.rejectionCode();
         this.verdict = Verdict.REJECT;
         this.invariant = invariant;
+        this.residue = false;
+    }
+
+    /** True for the rejection of a residue rule (its invariant's range rejection is another reason). */
+    public boolean residue() {
+        return residue;
     }
 
     /** The stable lower-case code used in files, manifests and metric tags. */

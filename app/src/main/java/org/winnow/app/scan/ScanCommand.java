@@ -65,12 +65,12 @@ public final class ScanCommand implements Callable<Integer> {
     SpaceOptions space = new SpaceOptions();
 
     @Option(names = "--keep", paramLabel = "INVARIANT=LO..HI",
-            description = "Keep range (repeatable): h11, h21 (predicted); chi, rows, cols, dim, blocks (exact). "
-                    + "LO.. and ..HI are one-sided; a single value means LO = HI.")
+            description = "Keep range (repeatable): h11, h21, h31, h22 (predicted); chi, rows, cols, dim, blocks (exact). "
+                    + "LO.. and ..HI are one-sided; a single value means LO = HI; chi%M=R keeps chi = R mod M.")
     List<String> keeps = new ArrayList<>();
 
     @Option(names = "--rules-file", paramLabel = "F",
-            description = "Rules, one a line: 'keep INVARIANT=LO..HI', 'min-confidence X', 'novelty X'.")
+            description = "Rules, one a line: 'keep INVARIANT=LO..HI', 'keep chi%M=R', 'min-confidence X', 'novelty X'.")
     Path rulesFile;
 
     @Option(names = "--min-confidence", paramLabel = "X",

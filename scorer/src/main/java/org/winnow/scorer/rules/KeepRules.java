@@ -14,7 +14,7 @@ import org.winnow.pipeline.Reason;
  * and the novelty guard above which nothing is rejected on a prediction.
  *
  * <p>Decision order, so that every candidate gets exactly one reason: the exact ranges in the order
- * given (the first violated one rejects); then the predicted ranges in the order given: if none is
+ * given (the first violated one rejects), then the residue rules on chi; then the predicted ranges in the order given: if none is
  * violated the candidate is kept in range (or undecided, when a predicted invariant is not determined),
  * otherwise the first violated one rejects unless the novelty reaches the guard (kept as novel) or the
  * confidence is below the threshold (kept with low confidence).
@@ -22,10 +22,11 @@ import org.winnow.pipeline.Reason;
  * <p>Immutable and thread-safe.
  *
  * @param ranges        at most one range per invariant
+ * @param residues      at most one residue rule per invariant (only chi takes one, such as {@code chi%24=0})
  * @param minConfidence a prediction rejects only with at least this confidence, in [0, 1]
  * @param noveltyGuard  a prediction rejects only with novelty below this, in (0, 1]
  */
-public record KeepRules(List<RangeRule> ranges, double minConfidence, double noveltyGuard) {
+public record KeepRules(List<RangeRule> ranges, List<ResidueRule> residues, double minConfidence, double noveltyGuard) {
     /** Default confidence threshold. */
     public static final double DEFAULT_MIN_CONFIDENCE = 0.9;
     /** Default novelty guard. */
@@ -33,11 +34,20 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
 
     public KeepRules {
         ranges = List.copyOf(ranges);
+        residues = List.copyOf(residues);
         Map<Keepable, RangeRule> seen = new EnumMap<>(Keepable.class);
         for (RangeRule r : ranges) {
             RangeRule before = seen.putIfAbsent(r.invariant(), r);
             if (before != null) {
                 throw new RuleException(String.format("rule '%s': %s already has the rule '%s'; give one range per invariant",
+                        r, r.invariant().label(), before));
+            }
+        }
+        Map<Keepable, ResidueRule> seenResidue = new EnumMap<>(Keepable.class);
+        for (ResidueRule r : residues) {
+            ResidueRule before = seenResidue.putIfAbsent(r.invariant(), r);
+            if (before != null) {
+                throw new RuleException(String.format("rule '%s': %s already has the rule '%s'; give one residue per invariant",
                         r, r.invariant().label(), before));
             }
         }
@@ -49,20 +59,40 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
         }
     }
 
-    /** Parses {@code --keep} values with the given thresholds. */
-    public static KeepRules of(List<String> keeps, double minConfidence, double noveltyGuard) {
-        List<RangeRule> ranges = new ArrayList<>();
-        for (String k : keeps) {
-            ranges.add(RangeRule.parse(k));
-        }
-        return new KeepRules(ranges, minConfidence, noveltyGuard);
+    /** Ranges only. */
+    public KeepRules(List<RangeRule> ranges, double minConfidence, double noveltyGuard) {
+        this(ranges, List.of(), minConfidence, noveltyGuard);
     }
 
-    /** The reason for the verdict on a candidate with these invariants and this prediction (novelty included). */
+    /** Parses {@code --keep} values ({@code h31=100..500}, {@code chi%24=0}) with the given thresholds. */
+    public static KeepRules of(List<String> keeps, double minConfidence, double noveltyGuard) {
+        List<RangeRule> ranges = new ArrayList<>();
+        List<ResidueRule> residues = new ArrayList<>();
+        for (String k : keeps) {
+            if (ResidueRule.looksLike(k)) {
+                residues.add(ResidueRule.parse(k));
+            } else {
+                ranges.add(RangeRule.parse(k));
+            }
+        }
+        return new KeepRules(ranges, residues, minConfidence, noveltyGuard);
+    }
+
+    /**
+     * The reason for the verdict on a candidate with these invariants and this prediction (novelty included).
+     * A product (more than one block) is never rejected on h21, h31 or h22: the prediction gives them
+     * through identities of full holonomy ({@code chi = 2(h11 - h21)}, {@code chi = 48 + 6(h11 - h21 + h31)},
+     * {@code h22 = 44 + 4 h11 - 2 h21 + 4 h31}), which fail for products; such a rule leaves it undecided.
+     */
     public Reason decide(ExactInvariants exact, Prediction prediction) {
         for (RangeRule r : ranges) {
             if (r.invariant().exact() && !r.contains(exactValue(r.invariant(), exact))) {
                 return r.invariant().rejection();
+            }
+        }
+        for (ResidueRule r : residues) {
+            if (!r.accepts(exactValue(r.invariant(), exact))) {
+                return Reason.EXACT_CHI_WRONG_RESIDUE;
             }
         }
         boolean undecided = false;
@@ -72,7 +102,7 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
                 continue;
             }
             Integer value = predictedValue(r.invariant(), prediction);
-            if (value == null) {
+            if (value == null || exact.blocks() > 1 && r.invariant() != Keepable.H11) {
                 undecided = true;
             } else if (!r.contains(value)) {
                 violated = r;
@@ -97,6 +127,9 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
         for (RangeRule r : ranges) {
             lines.add(RulesFile.KEEP + " " + r);
         }
+        for (ResidueRule r : residues) {
+            lines.add(RulesFile.KEEP + " " + r);
+        }
         lines.add(RulesFile.MIN_CONFIDENCE + " " + minConfidence);
         lines.add(RulesFile.NOVELTY + " " + noveltyGuard);
         return lines;
@@ -109,7 +142,7 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
             case COLS -> e.cols();
             case DIM -> e.dim();
             case BLOCKS -> e.blocks();
-            case H11, H21 -> throw new IllegalArgumentException(invariant.label() + " is not exact");
+            case H11, H21, H31, H22 -> throw new IllegalArgumentException(invariant.label() + " is not exact");
         };
     }
 
@@ -117,6 +150,8 @@ public record KeepRules(List<RangeRule> ranges, double minConfidence, double nov
         return switch (invariant) {
             case H11 -> e.h11();
             case H21 -> e.h21();
+            case H31 -> e.h31();
+            case H22 -> e.h22();
             default -> throw new IllegalArgumentException(invariant.label() + " is not predicted");
         };
     }

@@ -18,6 +18,7 @@ import org.winnow.pipeline.Keepable;
  * <pre>
  * keep h11=4..6
  * keep chi=-60..0
+ * keep chi%24=0
  * min-confidence 0.9
  * novelty 0.99
  * </pre>
@@ -54,6 +55,7 @@ public final class RulesFile {
         OptionalDouble minConfidence = OptionalDouble.empty();
         OptionalDouble novelty = OptionalDouble.empty();
         Map<Keepable, String> rangeAt = new HashMap<>();
+        Map<Keepable, String> residueAt = new HashMap<>();
         String confidenceAt = null;
         String noveltyAt = null;
         for (int i = 0; i < lines.size(); i++) {
@@ -69,11 +71,20 @@ public final class RulesFile {
             try {
                 switch (parts[0]) {
                     case KEEP -> {
-                        RangeRule rule = RangeRule.parse(value);
-                        String before = rangeAt.putIfAbsent(rule.invariant(), where);
-                        if (before != null) {
-                            throw new RuleException(String.format("rule '%s': %s already has a range at %s; give one "
-                                    + "range per invariant", body, rule.invariant().label(), before));
+                        if (ResidueRule.looksLike(value)) {
+                            ResidueRule rule = ResidueRule.parse(value);
+                            String before = residueAt.putIfAbsent(rule.invariant(), where);
+                            if (before != null) {
+                                throw new RuleException(String.format("rule '%s': %s already has a residue at %s; give "
+                                        + "one residue per invariant", body, rule.invariant().label(), before));
+                            }
+                        } else {
+                            RangeRule rule = RangeRule.parse(value);
+                            String before = rangeAt.putIfAbsent(rule.invariant(), where);
+                            if (before != null) {
+                                throw new RuleException(String.format("rule '%s': %s already has a range at %s; give one "
+                                        + "range per invariant", body, rule.invariant().label(), before));
+                            }
                         }
                         keeps.add(value);
                     }
@@ -101,8 +112,8 @@ public final class RulesFile {
                         noveltyAt = where;
                         novelty = OptionalDouble.of(x);
                     }
-                    default -> throw new RuleException(String.format("rule '%s': expected '%s INVARIANT=LO..HI', '%s X' or '%s X'",
-                            body, KEEP, MIN_CONFIDENCE, NOVELTY));
+                    default -> throw new RuleException(String.format("rule '%s': expected '%s INVARIANT=LO..HI', '%s chi%%M=R', "
+                            + "'%s X' or '%s X'", body, KEEP, KEEP, MIN_CONFIDENCE, NOVELTY));
                 }
             } catch (RuleException e) {
                 throw new RuleException(where + ": " + e.getMessage());

@@ -30,7 +30,7 @@ class KeepRulesTest {
 
     @Test
     void badRulesFailWithOneLineNamingTheRule() {
-        assertMessage("rule 'h12=1..2': unknown invariant 'h12' (known: h11, h21, chi, rows, cols, dim, blocks)",
+        assertMessage("rule 'h12=1..2': unknown invariant 'h12' (known: h11, h21, h31, h22, chi, rows, cols, dim, blocks)",
                 () -> RangeRule.parse("h12=1..2"));
         assertMessage("rule 'h11=6..4': empty range, 6 > 4", () -> RangeRule.parse("h11=6..4"));
         assertMessage("rule 'h11=a..4': 'a' is not a whole number", () -> RangeRule.parse("h11=a..4"));
@@ -107,10 +107,10 @@ class KeepRulesTest {
         assertEquals(List.of("h11=4..6", "chi=-60..0"), c.keeps());
         assertEquals(0.85, c.minConfidence().getAsDouble());
         assertEquals(0.97, c.noveltyGuard().getAsDouble());
-        assertMessage("demo.rules:2: rule 'keep x11=4..6': unknown invariant 'x11' (known: h11, h21, chi, rows, cols, dim, blocks)"
+        assertMessage("demo.rules:2: rule 'keep x11=4..6': unknown invariant 'x11' (known: h11, h21, h31, h22, chi, rows, cols, dim, blocks)"
                 .replace("rule 'keep x11=4..6'", "rule 'x11=4..6'"),
                 () -> RulesFile.parse(List.of("keep h11=1..2", "keep x11=4..6"), "demo.rules"));
-        assertMessage("demo.rules:1: rule 'confidence 0.9': expected 'keep INVARIANT=LO..HI', 'min-confidence X' or 'novelty X'",
+        assertMessage("demo.rules:1: rule 'confidence 0.9': expected 'keep INVARIANT=LO..HI', 'keep chi%M=R', 'min-confidence X' or 'novelty X'",
                 () -> RulesFile.parse(List.of("confidence 0.9"), "demo.rules"));
         assertMessage("demo.rules:1: rule 'novelty high': 'high' is not a number",
                 () -> RulesFile.parse(List.of("novelty high"), "demo.rules"));
