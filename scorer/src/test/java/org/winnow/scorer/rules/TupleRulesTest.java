@@ -69,6 +69,8 @@ class TupleRulesTest {
                 () -> KeepRules.of(List.of("chi%24=0", "chi%12=0"), 0.9, 0.99));
         assertMessage("r.txt:2: rule 'chi%0=0': the modulus must be at least 2",
                 () -> RulesFile.parse(List.of("keep chi%24=0", "keep chi%0=0"), "r.txt"));
+        assertMessage("r.txt:3: rule 'keep chi%12=0': chi already has a residue at r.txt:1; give one residue per invariant",
+                () -> RulesFile.parse(List.of("keep chi%24=0", "keep chi=0..2000", "keep chi%12=0"), "r.txt"));
     }
 
     private static void assertMessage(String expected, org.junit.jupiter.api.function.Executable e) {
