@@ -5,7 +5,6 @@ import java.io.PrintStream;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
-import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -149,30 +148,10 @@ public final class ScanPipelineBench {
         Path dir = Files.createTempDirectory(work, "sink");
         SourceReport done = new SourceReport(scored.size(), 0, scored.size(), 0, 0, List.of(), true);
         SurvivorSink sink = SurvivorSink.open(dir, new org.winnow.sink.ScanInfo("bench", "bench", null, List.of(), "bench"),
-                new SinkOptions(100_000, false, 50_000, Duration.ofSeconds(5)), Clock.systemUTC(), () -> done,
+                new SinkOptions(), Clock.systemUTC(), () -> done,
                 CrashHook.NONE);
         SimpleMeterRegistry reg = new SimpleMeterRegistry();
-        sink.open(new StageContext<Void>() {
-            public String stageName() {
-                return "sink";
-            }
-
-            public int worker() {
-                return 0;
-            }
-
-            public int workers() {
-                return 1;
-            }
-
-            public io.micrometer.core.instrument.MeterRegistry registry() {
-                return reg;
-            }
-
-            public void forward(Void v) {
-                throw new IllegalStateException();
-            }
-        });
+        sink.open(StageContext.terminal("sink", reg));
         for (Scored s : scored) {
             sink.accept(s);
         }

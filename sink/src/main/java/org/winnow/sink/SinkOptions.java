@@ -21,8 +21,20 @@ public record SinkOptions(int linesPerFile, boolean writeRejects, int checkpoint
                 "checkpoint period must be positive: %s", checkpointEvery);
     }
 
+    /** Data lines per file unless told otherwise. */
+    public static final int DEFAULT_LINES_PER_FILE = 100_000;
+    /** Records between checkpoints unless told otherwise. */
+    public static final int DEFAULT_CHECKPOINT_RECORDS = 50_000;
+    /** The longest wall time between checkpoints. */
+    public static final Duration DEFAULT_CHECKPOINT_EVERY = Duration.ofSeconds(5);
+
     /** Defaults: 100,000 lines a file, no rejects file, checkpoints every 50,000 records or 5 seconds. */
     public SinkOptions() {
-        this(100_000, false, 50_000, Duration.ofSeconds(5));
+        this(DEFAULT_LINES_PER_FILE, false);
+    }
+
+    /** The given file size and rejects choice, checkpoints at the defaults. */
+    public SinkOptions(int linesPerFile, boolean writeRejects) {
+        this(linesPerFile, writeRejects, DEFAULT_CHECKPOINT_RECORDS, DEFAULT_CHECKPOINT_EVERY);
     }
 }

@@ -60,9 +60,9 @@ public final class ClusterScorer implements AutoCloseable {
         }
         KryoCodec codec = WireTypes.stages().build();
         ScorerStage stage = new ScorerStage(scoring, rules, System::nanoTime);
-        ForwardingContext ctx = new ForwardingContext(registry, instance, rejects);
+        Forwarder ctx = new Forwarder(rejects);
         try {
-            stage.open(ctx);
+            stage.open(StageContext.single("scorer-" + instance, registry, ctx::send));
         } catch (Exception e) {
             throw new IllegalStateException("the scorer stage did not open: " + e.getMessage(), e);
         }
@@ -103,40 +103,15 @@ public final class ClusterScorer implements AutoCloseable {
      * The scorer stage's way downstream: into the relay's current transaction, keyed by candidate key, a
      * rejected candidate slim when the run says so.
      */
-    private static final class ForwardingContext implements StageContext<Scored> {
-        private final MeterRegistry registry;
-        private final String instance;
+    private static final class Forwarder {
         private final RejectsOnWire rejects;
         private ExactlyOnceRelay.Emitter<Object> out;
 
-        ForwardingContext(MeterRegistry registry, String instance, RejectsOnWire rejects) {
-            this.registry = Objects.requireNonNull(registry, "registry");
-            this.instance = instance;
+        Forwarder(RejectsOnWire rejects) {
             this.rejects = Objects.requireNonNull(rejects, "rejects");
         }
 
-        @Override
-        public String stageName() {
-            return "scorer-" + instance;
-        }
-
-        @Override
-        public int worker() {
-            return 0;
-        }
-
-        @Override
-        public int workers() {
-            return 1;
-        }
-
-        @Override
-        public MeterRegistry registry() {
-            return registry;
-        }
-
-        @Override
-        public void forward(Scored record) {
+        void send(Scored record) {
             boolean slim = rejects == RejectsOnWire.SLIM && record.verdict() == Verdict.REJECT;
             out.send(record.candidate().key(), slim ? SlimReject.of(record) : record);
         }

@@ -271,33 +271,7 @@ public final class ClusterSink {
     }
 
     private static StageContext<Void> context(MeterRegistry registry) {
-        Objects.requireNonNull(registry, "registry");
-        return new StageContext<>() {
-            @Override
-            public String stageName() {
-                return "sink";
-            }
-
-            @Override
-            public int worker() {
-                return 0;
-            }
-
-            @Override
-            public int workers() {
-                return 1;
-            }
-
-            @Override
-            public MeterRegistry registry() {
-                return registry;
-            }
-
-            @Override
-            public void forward(Void record) {
-                throw new IllegalStateException("the sink forwards nothing");
-            }
-        };
+        return StageContext.terminal("sink", registry);
     }
 
     private static void sleep(Duration d) {

@@ -55,11 +55,11 @@ public final class SinkCommand implements Callable<Integer> {
     boolean rejects;
 
     @Option(names = "--lines-per-file", paramLabel = "N", description = "Survivor lines per file (default ${DEFAULT-VALUE}).")
-    int linesPerFile = 100_000;
+    int linesPerFile = SinkOptions.DEFAULT_LINES_PER_FILE;
 
     @Option(names = "--checkpoint-records", paramLabel = "N",
             description = "Checkpoint at least every N records (default ${DEFAULT-VALUE}), and every 5 s.")
-    int checkpointRecords = 50_000;
+    int checkpointRecords = SinkOptions.DEFAULT_CHECKPOINT_RECORDS;
 
     @Override
     public Integer call() {
@@ -70,7 +70,7 @@ public final class SinkCommand implements Callable<Integer> {
         try {
             settings = connection.settings();
             topics = new RunTopics(run);
-            options = new SinkOptions(linesPerFile, rejects, checkpointRecords, Duration.ofSeconds(5));
+            options = new SinkOptions(linesPerFile, rejects, checkpointRecords, SinkOptions.DEFAULT_CHECKPOINT_EVERY);
             metrics.validate();
         } catch (IllegalArgumentException e) {
             return Exit.badInput(err, "sink", e.getMessage());

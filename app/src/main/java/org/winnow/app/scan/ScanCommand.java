@@ -5,7 +5,6 @@ import java.io.PrintWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Clock;
-import java.time.Duration;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
@@ -102,7 +101,7 @@ public final class ScanCommand implements Callable<Integer> {
     boolean rejects;
 
     @Option(names = "--lines-per-file", paramLabel = "N", description = "Survivor lines per file (default ${DEFAULT-VALUE}).")
-    int linesPerFile = 100_000;
+    int linesPerFile = SinkOptions.DEFAULT_LINES_PER_FILE;
 
     @Option(names = "--queue", paramLabel = "N", description = "Capacity of each in-memory queue (default ${DEFAULT-VALUE}).")
     int queue = 1024;
@@ -240,7 +239,7 @@ public final class ScanCommand implements Callable<Integer> {
         }
         int workers = threads != null ? threads : Runtime.getRuntime().availableProcessors();
         return new ScanJob.Settings(source, input, enumerated, scoring, rules, out,
-                new SinkOptions(linesPerFile, rejects, 50_000, Duration.ofSeconds(5)),
+                new SinkOptions(linesPerFile, rejects),
                 new LocalPipeline.Options(workers, queue, Math.max(8 * queue, 64)),
                 strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP);
     }

@@ -113,7 +113,7 @@ public final class LocalPipeline {
             int worker = i;
             threads.add(thread("winnow-scorer-" + i, failure, failAll, () -> {
                 try (Closer ignored = new Closer(stage)) {
-                    stage.open(new Context<>("scorer", worker, n, registry, scored::send));
+                    stage.open(StageContext.of("scorer", worker, n, registry, scored::send));
                     for (Candidate c = candidates.receive(); c != null; c = candidates.receive()) {
                         stage.accept(c);
                     }
@@ -124,9 +124,7 @@ public final class LocalPipeline {
         }
         threads.add(thread("winnow-sink", failure, failAll, () -> {
             try (Closer ignored = new Closer(sink)) {
-                sink.open(new Context<>("sink", 0, 1, registry, r -> {
-                    throw new IllegalStateException("the sink forwards nothing");
-                }));
+                sink.open(StageContext.terminal("sink", registry));
                 for (Scored s = scored.receive(); s != null; s = scored.receive()) {
                     reorder.put(s);
                     for (Scored next = reorder.next(); next != null; next = reorder.next()) {
@@ -232,18 +230,5 @@ public final class LocalPipeline {
         int maxDepth() {
             return maxDepth;
         }
-    }
-
-    private record Context<O>(String stageName, int worker, int workers, MeterRegistry registry, Forward<O> out)
-            implements StageContext<O> {
-        @Override
-        public void forward(O record) throws InterruptedException {
-            out.forward(record);
-        }
-    }
-
-    @FunctionalInterface
-    private interface Forward<O> {
-        void forward(O record) throws InterruptedException;
     }
 }

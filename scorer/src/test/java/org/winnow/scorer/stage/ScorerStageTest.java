@@ -42,27 +42,7 @@ class ScorerStageTest {
     }
 
     private static StageContext<Scored> context(MeterRegistry reg, List<Scored> out) {
-        return new StageContext<>() {
-            public String stageName() {
-                return "scorer";
-            }
-
-            public int worker() {
-                return 0;
-            }
-
-            public int workers() {
-                return 1;
-            }
-
-            public MeterRegistry registry() {
-                return reg;
-            }
-
-            public void forward(Scored s) {
-                out.add(s);
-            }
-        };
+        return StageContext.single("scorer", reg, s -> out.add(s));
     }
 
     private static Candidate candidate(String text, long seq) {
