@@ -2,7 +2,6 @@ package org.winnow.app.scan;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -10,9 +9,9 @@ import java.util.Comparator;
 import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
-import java.util.stream.Stream;
 import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.WinnowCli;
+import org.winnow.sink.ScanDirectory;
 import org.winnow.sink.ScanFiles;
 import org.winnow.sink.SurvivorLine;
 import picocli.CommandLine.Command;
@@ -94,22 +93,11 @@ public final class DemoCommand implements Callable<Integer> {
     }
 
     private static List<SurvivorLine> readSurvivors(Path scanDir) throws IOException {
-        List<SurvivorLine> all = new ArrayList<>();
-        List<Path> files;
-        try (Stream<Path> s = Files.list(scanDir)) {
-            files = s.filter(p -> {
-                String name = p.getFileName().toString();
-                return name.startsWith(ScanFiles.SURVIVORS + "-") && name.endsWith(".tsv");
-            }).sorted().toList();
+        try {
+            return new ArrayList<>(ScanDirectory.read(scanDir).survivors());
+        } catch (ScanDirectory.UnreadableException e) {
+            throw new IOException(e.getMessage(), e);
         }
-        for (Path f : files) {
-            for (String line : Files.readAllLines(f, StandardCharsets.UTF_8)) {
-                if (!line.isBlank() && !line.startsWith("#") && !line.startsWith("config\t")) {
-                    all.add(SurvivorLine.parse(line));
-                }
-            }
-        }
-        return all;
     }
 
     private static Path defaultDataDir() {
