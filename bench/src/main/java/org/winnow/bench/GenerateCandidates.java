@@ -12,7 +12,7 @@ import org.winnow.geometry.Configuration;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.Enumerator;
-import org.winnow.producer.RuleSet;
+import org.winnow.producer.ExclusionSet;
 import org.winnow.producer.ShardSpec;
 import org.winnow.scorer.model.synthetic.SyntheticScenario;
 import picocli.CommandLine;
@@ -67,9 +67,9 @@ public final class GenerateCandidates implements Callable<Integer> {
         if (dim == 3) {
             write(count, seed, out);
         } else if (dim == 4) {
-            RuleSet ruleSet;
+            ExclusionSet ruleSet;
             try {
-                ruleSet = RuleSet.byName(rules);
+                ruleSet = ExclusionSet.byName(rules);
             } catch (IllegalArgumentException e) {
                 System.err.println("generate-candidates: --rules: " + e.getMessage());
                 return 2;
@@ -89,7 +89,7 @@ public final class GenerateCandidates implements Callable<Integer> {
      * Writes up to {@code count} four-fold matrices of the enumeration under {@code rules} with at most
      * {@code maxRows} rows, at an even stride over the whole enumeration; returns how many.
      */
-    static long writeEnumerated(long count, int maxRows, RuleSet rules, Path out) throws IOException {
+    static long writeEnumerated(long count, int maxRows, ExclusionSet rules, Path out) throws IOException {
         Bounds complete = Bounds.complete(4);
         Bounds bounds = new Bounds(4, complete.minRows(), maxRows, complete.maxCols(), complete.maxN(),
                 complete.maxEntry());

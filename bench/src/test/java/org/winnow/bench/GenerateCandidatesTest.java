@@ -13,7 +13,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.invariants.InvariantCalculator;
-import org.winnow.producer.RuleSet;
+import org.winnow.producer.ExclusionSet;
 
 /** The four-fold bench file: distinct canonical four-folds of the enumeration with their exact chi. */
 class GenerateCandidatesTest {
@@ -23,7 +23,7 @@ class GenerateCandidatesTest {
     @Test
     void fourFoldFileHoldsDistinctCanonicalMatricesOfEveryRowCountWithTheirChi() throws Exception {
         Path out = dir.resolve("c4.tsv");
-        assertEquals(400, GenerateCandidates.writeEnumerated(400, 4, RuleSet.LOSSLESS, out));
+        assertEquals(400, GenerateCandidates.writeEnumerated(400, 4, ExclusionSet.LOSSLESS, out));
         List<String> lines = Files.readAllLines(out, StandardCharsets.UTF_8);
         assertEquals(400, lines.size());
         InvariantCalculator calculator = new InvariantCalculator();
@@ -46,7 +46,7 @@ class GenerateCandidatesTest {
     @Test
     void aSpaceSmallerThanTheCountIsWrittenWhole() throws Exception {
         Path out = dir.resolve("small.tsv");
-        long written = GenerateCandidates.writeEnumerated(1_000_000, 1, RuleSet.LOSSLESS, out);
+        long written = GenerateCandidates.writeEnumerated(1_000_000, 1, ExclusionSet.LOSSLESS, out);
         assertEquals(written, Files.readAllLines(out, StandardCharsets.UTF_8).size());
         assertTrue(written > 0 && written < 1_000_000, "written: " + written);
     }

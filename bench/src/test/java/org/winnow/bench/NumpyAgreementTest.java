@@ -16,7 +16,7 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.geometry.hodge.RefinedH11Estimator;
-import org.winnow.producer.RuleSet;
+import org.winnow.producer.ExclusionSet;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.model.Predictor;
@@ -57,7 +57,7 @@ class NumpyAgreementTest {
         assumeTrue(python != null, "no python3 with numpy on this machine");
 
         Path candidates = dir.resolve("c4.tsv");
-        assertEquals(600, GenerateCandidates.writeEnumerated(600, 5, RuleSet.BASE, candidates));
+        assertEquals(600, GenerateCandidates.writeEnumerated(600, 5, ExclusionSet.BASE, candidates));
         TrainingOptions options = TrainingOptions.defaults(9, 5).withEpochs(2).withThreads(1);
         FrozenModel model = Trainer.train(BenchModel.fromCandidates(candidates, 300), options,
                 TrainingProgress.silent());

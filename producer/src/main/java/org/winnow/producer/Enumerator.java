@@ -23,7 +23,7 @@ public final class Enumerator {
      *
      * @return the number of matrices pushed
      */
-    public long run(Bounds bounds, RuleSet rules, ShardSpec shard, Consumer<? super EnumeratedMatrix> out) {
+    public long run(Bounds bounds, ExclusionSet rules, ShardSpec shard, Consumer<? super EnumeratedMatrix> out) {
         Checks.requireArgument(bounds != null && rules != null && shard != null && out != null,
                 "bounds, rules, shard and consumer are required");
         long[] seq = new long[1];
@@ -44,14 +44,14 @@ public final class Enumerator {
     /**
      * Runs the enumeration on {@code threads} worker threads and pushes every kept matrix to {@code out} on
      * the calling thread, in the same order and with the same sequence numbers as {@link #run(Bounds,
-     * RuleSet, ShardSpec, Consumer)}; one thread is that method. The workers build the configurations and
+     * ExclusionSet, ShardSpec, Consumer)}; one thread is that method. The workers build the configurations and
      * their text, so the calling thread's consumer overlaps with the search.
      *
      * @return the number of matrices pushed
      * @throws CancellationException if the calling thread is interrupted while it waits (its interrupt
      *     flag is set again); the workers are stopped before this returns or throws
      */
-    public long run(Bounds bounds, RuleSet rules, ShardSpec shard, int threads,
+    public long run(Bounds bounds, ExclusionSet rules, ShardSpec shard, int threads,
             Consumer<? super EnumeratedMatrix> out) {
         Checks.requireArgument(threads >= 1, "threads must be at least 1, got %s", threads);
         if (threads == 1) {
@@ -68,7 +68,7 @@ public final class Enumerator {
      *
      * @throws CancellationException when stopped before the end
      */
-    public EnumerationCounts count(Bounds bounds, RuleSet rules, ShardSpec shard, int threads, BooleanSupplier stop) {
+    public EnumerationCounts count(Bounds bounds, ExclusionSet rules, ShardSpec shard, int threads, BooleanSupplier stop) {
         Checks.requireArgument(threads >= 1, "threads must be at least 1, got %s", threads);
         if (threads == 1) {
             return count(bounds, rules, shard, stop);
@@ -79,7 +79,7 @@ public final class Enumerator {
     }
 
     /** Counts what {@link #run} would emit, per number of rows. */
-    public EnumerationCounts count(Bounds bounds, RuleSet rules, ShardSpec shard) {
+    public EnumerationCounts count(Bounds bounds, ExclusionSet rules, ShardSpec shard) {
         return count(bounds, rules, shard, () -> false);
     }
 
@@ -89,7 +89,7 @@ public final class Enumerator {
      *
      * @throws CancellationException when stopped before the end
      */
-    public EnumerationCounts count(Bounds bounds, RuleSet rules, ShardSpec shard, BooleanSupplier stop) {
+    public EnumerationCounts count(Bounds bounds, ExclusionSet rules, ShardSpec shard, BooleanSupplier stop) {
         Checks.requireArgument(bounds != null && rules != null && shard != null && stop != null,
                 "bounds, rules, shard and stop are required");
         long[] byRows = new long[bounds.maxRows() + 1];
@@ -107,7 +107,7 @@ public final class Enumerator {
         return Ambients.list(bounds);
     }
 
-    private static void walk(Bounds bounds, RuleSet rules, ShardSpec shard, SearchTree.Leaf leaf) {
+    private static void walk(Bounds bounds, ExclusionSet rules, ShardSpec shard, SearchTree.Leaf leaf) {
         SearchTree tree = new SearchTree(bounds, rules, shard, leaf);
         for (int[] dims : Ambients.list(bounds)) {
             tree.run(dims);

@@ -39,7 +39,7 @@ final class ParallelWalk {
     private record Item(Configuration configuration, String text, int flags) {}
 
     private final Bounds bounds;
-    private final RuleSet rules;
+    private final ExclusionSet rules;
     private final ShardSpec shard;
     private final int threads;
 
@@ -54,7 +54,7 @@ final class ParallelWalk {
     private Throwable failure;
     private volatile boolean cancelled;
 
-    ParallelWalk(Bounds bounds, RuleSet rules, ShardSpec shard, int threads) {
+    ParallelWalk(Bounds bounds, ExclusionSet rules, ShardSpec shard, int threads) {
         this.bounds = bounds;
         this.rules = rules;
         this.shard = shard;

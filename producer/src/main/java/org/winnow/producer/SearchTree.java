@@ -23,7 +23,7 @@ final class SearchTree {
     }
 
     private final Bounds bounds;
-    private final RuleSet rules;
+    private final ExclusionSet rules;
     private final LongPredicate owns;
     private final Leaf leaf;
     /** The rule set drops Q3p, so a subtree under two equal P^1 rows has no leaf to emit. */
@@ -49,7 +49,7 @@ final class SearchTree {
     private long unit;
     private long nodes;
 
-    SearchTree(Bounds bounds, RuleSet rules, ShardSpec shard, Leaf leaf) {
+    SearchTree(Bounds bounds, ExclusionSet rules, ShardSpec shard, Leaf leaf) {
         this(bounds, rules, (LongPredicate) shard::owns, leaf);
     }
 
@@ -57,7 +57,7 @@ final class SearchTree {
      * @param owns asked once per unit, in generation order, whether to descend into it (a shard, or a
      *             worker of a parallel walk that claims units as it meets them)
      */
-    SearchTree(Bounds bounds, RuleSet rules, LongPredicate owns, Leaf leaf) {
+    SearchTree(Bounds bounds, ExclusionSet rules, LongPredicate owns, Leaf leaf) {
         this.bounds = bounds;
         this.rules = rules;
         this.owns = owns;

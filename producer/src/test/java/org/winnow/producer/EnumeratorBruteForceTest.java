@@ -41,11 +41,11 @@ class EnumeratorBruteForceTest {
         int compared = 0;
         for (Bounds b : bounds) {
             // the lines carry the flags, so one base run per bound checks every flag of every matrix
-            compare(enumerator, space, b, RuleSet.BASE);
+            compare(enumerator, space, b, ExclusionSet.BASE);
             compared++;
         }
         Bounds widest = new Bounds(dim, 1, ROWS, COLS, 2 * dim + 1, 2 * dim + 2);
-        for (RuleSet rules : RuleSet.named()) {
+        for (ExclusionSet rules : ExclusionSet.named()) {
             compare(enumerator, space, widest, rules);
             compare(enumerator, space, widest, rules.withoutProducts());
             compared += 2;
@@ -54,14 +54,14 @@ class EnumeratorBruteForceTest {
     }
 
     private static void compare(Enumerator enumerator, TreeMap<String, BruteForceSpace.Entry> space, Bounds b,
-            RuleSet r) {
+            ExclusionSet r) {
         List<String> actual = new ArrayList<>();
         enumerator.run(b, r, ShardSpec.ALL, e -> actual.add(e.toLine()));
         actual.sort(null);
         assertEquals(expected(space, b, r), actual, b + " " + r.name());
     }
 
-    private static List<String> expected(TreeMap<String, BruteForceSpace.Entry> space, Bounds b, RuleSet r) {
+    private static List<String> expected(TreeMap<String, BruteForceSpace.Entry> space, Bounds b, ExclusionSet r) {
         List<String> out = new ArrayList<>();
         for (BruteForceSpace.Entry e : space.values()) {
             if (e.rows() >= b.minRows() && e.rows() <= b.maxRows() && e.cols() <= b.maxCols()

@@ -27,7 +27,7 @@ class EnumeratorTest {
 
     private List<String> oneRow(int dim) {
         List<String> out = new ArrayList<>();
-        for (RuleSet r : RuleSet.named()) {
+        for (ExclusionSet r : ExclusionSet.named()) {
             List<String> lines = new ArrayList<>();
             enumerator.run(Bounds.complete(dim).withRows(1, 1), r, ShardSpec.ALL, e -> lines.add(e.text()));
             lines.sort(null);
@@ -43,7 +43,7 @@ class EnumeratorTest {
     void outputIsCanonicalDistinctAndDeterministic() {
         Bounds b = Bounds.complete(3).withRows(1, 5);
         List<EnumeratedMatrix> first = new ArrayList<>();
-        enumerator.run(b, RuleSet.BASE, ShardSpec.ALL, first::add);
+        enumerator.run(b, ExclusionSet.BASE, ShardSpec.ALL, first::add);
         Set<String> seen = new HashSet<>();
         for (EnumeratedMatrix e : first) {
             assertTrue(seen.add(e.text()), "emitted twice: " + e.text());
@@ -52,12 +52,12 @@ class EnumeratorTest {
             assertEquals(3, e.configuration().dimension(), e.text());
         }
         List<String> again = new ArrayList<>();
-        enumerator.run(b, RuleSet.BASE, ShardSpec.ALL, e -> again.add(e.sequence() + " " + e.toLine()));
+        enumerator.run(b, ExclusionSet.BASE, ShardSpec.ALL, e -> again.add(e.sequence() + " " + e.toLine()));
         for (int i = 0; i < first.size(); i++) {
             assertEquals(i + " " + first.get(i).toLine(), again.get(i));
         }
         // counts per number of rows, enumeration design §10 (independent prototype)
-        EnumerationCounts c = enumerator.count(b, RuleSet.BASE, ShardSpec.ALL);
+        EnumerationCounts c = enumerator.count(b, ExclusionSet.BASE, ShardSpec.ALL);
         assertEquals(List.of(5L, 63L, 438L, 1914L, 5896L),
                 List.of(c.rows(1), c.rows(2), c.rows(3), c.rows(4), c.rows(5)));
         assertEquals(first.size(), c.total());
@@ -74,7 +74,7 @@ class EnumeratorTest {
         // enumeration design §10, d = 1 and d = 2 (independent prototype)
         long[][] expected = {{24, 5, 2, 2}, {1350, 41, 16, 13}};
         for (int d = 1; d <= 2; d++) {
-            RuleSet[] sets = RuleSet.named();
+            ExclusionSet[] sets = ExclusionSet.named();
             for (int i = 0; i < sets.length; i++) {
                 assertEquals(expected[d - 1][i], enumerator.count(Bounds.complete(d), sets[i], ShardSpec.ALL).total(),
                         "d=" + d + " " + sets[i].name());

@@ -17,7 +17,7 @@ class ParallelEnumerationTest {
     private final Enumerator enumerator = new Enumerator();
 
     /** Lines with their sequence numbers, so that order and numbering are compared too. */
-    private List<String> lines(Bounds b, RuleSet rules, ShardSpec shard, int threads) {
+    private List<String> lines(Bounds b, ExclusionSet rules, ShardSpec shard, int threads) {
         List<String> out = new ArrayList<>();
         long n = enumerator.run(b, rules, shard, threads, e -> out.add(e.sequence() + " " + e.toLine()));
         assertEquals(out.size(), n);
@@ -27,35 +27,35 @@ class ParallelEnumerationTest {
     @Test
     void threeFoldsAreIdenticalOnOneTwoAndThreeThreads() {
         Bounds b = Bounds.complete(3);
-        List<String> one = lines(b, RuleSet.LOSSLESS, ShardSpec.ALL, 1);
+        List<String> one = lines(b, ExclusionSet.LOSSLESS, ShardSpec.ALL, 1);
         // 9,133 lossless three-folds (docs/enumeration.md, equal to the enumeration design's prototype).
         assertEquals(9133, one.size());
-        assertEquals(one, lines(b, RuleSet.LOSSLESS, ShardSpec.ALL, 2));
-        assertEquals(one, lines(b, RuleSet.LOSSLESS, ShardSpec.ALL, 3));
+        assertEquals(one, lines(b, ExclusionSet.LOSSLESS, ShardSpec.ALL, 2));
+        assertEquals(one, lines(b, ExclusionSet.LOSSLESS, ShardSpec.ALL, 3));
     }
 
     @Test
     void fourFoldsUpToFiveRowsAreIdenticalOnOneTwoAndThreeThreads() {
         Bounds b = Bounds.complete(4).withRows(1, 5);
-        List<String> one = lines(b, RuleSet.LOSSLESS, ShardSpec.ALL, 1);
+        List<String> one = lines(b, ExclusionSet.LOSSLESS, ShardSpec.ALL, 1);
         // 35,166 = 7 + 149 + 1,332 + 7,237 + 26,441 (docs/enumeration.md, four-folds up to 6 rows).
         assertEquals(35166, one.size());
-        assertEquals(one, lines(b, RuleSet.LOSSLESS, ShardSpec.ALL, 2));
-        assertEquals(one, lines(b, RuleSet.LOSSLESS, ShardSpec.ALL, 3));
+        assertEquals(one, lines(b, ExclusionSet.LOSSLESS, ShardSpec.ALL, 2));
+        assertEquals(one, lines(b, ExclusionSet.LOSSLESS, ShardSpec.ALL, 3));
     }
 
     @Test
     void shardsOnSeveralThreadsAreDisjointAndCoverTheSpace() {
         Bounds b = Bounds.complete(3).withRows(1, 7);
         List<String> whole = new ArrayList<>();
-        enumerator.run(b, RuleSet.SPLIT, ShardSpec.ALL, e -> whole.add(e.toLine()));
+        enumerator.run(b, ExclusionSet.SPLIT, ShardSpec.ALL, e -> whole.add(e.toLine()));
         for (int count : new int[] {2, 5}) {
             List<String> union = new ArrayList<>();
             for (ShardSpec s : ShardPlan.of(count).shards()) {
                 List<String> one = new ArrayList<>();
-                enumerator.run(b, RuleSet.SPLIT, s, e -> one.add(e.toLine()));
+                enumerator.run(b, ExclusionSet.SPLIT, s, e -> one.add(e.toLine()));
                 List<String> three = new ArrayList<>();
-                enumerator.run(b, RuleSet.SPLIT, s, 3, e -> three.add(e.toLine()));
+                enumerator.run(b, ExclusionSet.SPLIT, s, 3, e -> three.add(e.toLine()));
                 assertEquals(one, three, "shard " + s);
                 union.addAll(three);
             }
@@ -67,7 +67,7 @@ class ParallelEnumerationTest {
     @Test
     void countsOnSeveralThreadsEqualTheOneThreadCounts() {
         for (int d = 2; d <= 3; d++) {
-            for (RuleSet rules : new RuleSet[] {RuleSet.BASE, RuleSet.LOSSLESS}) {
+            for (ExclusionSet rules : new ExclusionSet[] {ExclusionSet.BASE, ExclusionSet.LOSSLESS}) {
                 Bounds b = Bounds.complete(d).withRows(1, 7);
                 EnumerationCounts one = enumerator.count(b, rules, ShardSpec.ALL);
                 assertEquals(one, enumerator.count(b, rules, ShardSpec.ALL, 2, () -> false), d + " " + rules);
@@ -80,18 +80,18 @@ class ParallelEnumerationTest {
     void aFailingConsumerStopsTheWorkers() throws InterruptedException {
         AtomicInteger seen = new AtomicInteger();
         IllegalStateException e = assertThrows(IllegalStateException.class,
-                () -> enumerator.run(Bounds.complete(3), RuleSet.BASE, ShardSpec.ALL, 2, m -> {
+                () -> enumerator.run(Bounds.complete(3), ExclusionSet.BASE, ShardSpec.ALL, 2, m -> {
                     if (seen.incrementAndGet() == 1000) {
                         throw new IllegalStateException("consumer gave up");
                     }
                 }));
         assertEquals("consumer gave up", e.getMessage());
         assertFalse(workersAlive(), "enumeration workers outlived the run");
-        assertThrows(CancellationException.class, () -> enumerator.count(Bounds.complete(3), RuleSet.BASE, ShardSpec.ALL, 2,
+        assertThrows(CancellationException.class, () -> enumerator.count(Bounds.complete(3), ExclusionSet.BASE, ShardSpec.ALL, 2,
                 () -> seen.incrementAndGet() > 5000));
         assertFalse(workersAlive(), "counting workers outlived the count");
         assertThrows(IllegalArgumentException.class,
-                () -> enumerator.run(Bounds.complete(3), RuleSet.BASE, ShardSpec.ALL, 0, m -> {}));
+                () -> enumerator.run(Bounds.complete(3), ExclusionSet.BASE, ShardSpec.ALL, 0, m -> {}));
     }
 
     private static boolean workersAlive() {
@@ -103,7 +103,7 @@ class ParallelEnumerationTest {
         Thread.currentThread().interrupt();
         try {
             assertThrows(CancellationException.class,
-                    () -> enumerator.run(Bounds.complete(3), RuleSet.BASE, ShardSpec.ALL, 2, m -> {}));
+                    () -> enumerator.run(Bounds.complete(3), ExclusionSet.BASE, ShardSpec.ALL, 2, m -> {}));
             assertTrue(Thread.interrupted(), "the interrupt flag is set again");
             assertFalse(workersAlive());
         } finally {

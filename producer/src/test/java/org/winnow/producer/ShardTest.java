@@ -13,14 +13,14 @@ class ShardTest {
         Enumerator enumerator = new Enumerator();
         Bounds b = Bounds.complete(3).withRows(1, 6);
         List<String> whole = new ArrayList<>();
-        enumerator.run(b, RuleSet.SPLIT, ShardSpec.ALL, e -> whole.add(e.toLine()));
+        enumerator.run(b, ExclusionSet.SPLIT, ShardSpec.ALL, e -> whole.add(e.toLine()));
         whole.sort(null);
         assertTrue(whole.size() > 1000);
         for (int count : new int[] {1, 2, 7}) {
             List<String> union = new ArrayList<>();
             for (ShardSpec s : ShardPlan.of(count).shards()) {
                 int before = union.size();
-                enumerator.run(b, RuleSet.SPLIT, s, e -> union.add(e.toLine()));
+                enumerator.run(b, ExclusionSet.SPLIT, s, e -> union.add(e.toLine()));
                 assertTrue(count == 1 || union.size() - before < whole.size(), "shard " + s + " is not the whole space");
             }
             union.sort(null);

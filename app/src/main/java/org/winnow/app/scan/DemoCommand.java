@@ -58,7 +58,7 @@ public final class DemoCommand implements Callable<Integer> {
         o.println("winnow demo: scanning every three-fold configuration matrix (rule set lossless) as the producer "
                 + "enumerates it, with model " + model + " and rules " + rules);
         o.flush();
-        List<String> scan = new ArrayList<>(List.of("scan", "--model", model.toString(), "--dim", "3", "--rules",
+        List<String> scan = new ArrayList<>(List.of("scan", "--model", model.toString(), "--dim", "3", "--exclusions",
                 "lossless", "--rules-file", rules.toString(), "--out", scanDir.toString(), "--rejects"));
         if (threads != null) {
             scan.add("--threads");

@@ -18,7 +18,7 @@ import org.winnow.app.cli.Terminal;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.EnumerationCounts;
 import org.winnow.producer.Enumerator;
-import org.winnow.producer.RuleSet;
+import org.winnow.producer.ExclusionSet;
 import org.winnow.producer.ShardSpec;
 import org.winnow.producer.source.EnumeratedSpace;
 import picocli.CommandLine.Command;
@@ -66,7 +66,7 @@ public final class EnumerateCommand implements Callable<Integer> {
             return Exit.badInput(err, "enumerate", "--threads must be at least 1, got " + threads);
         }
         Bounds bounds = es.bounds();
-        RuleSet ruleSet = es.rules();
+        ExclusionSet ruleSet = es.rules();
         ShardSpec shardSpec = es.shard();
         Enumerator enumerator = new Enumerator();
         if (count) {

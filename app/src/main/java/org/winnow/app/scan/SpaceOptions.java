@@ -1,7 +1,7 @@
 package org.winnow.app.scan;
 
 import org.winnow.producer.Bounds;
-import org.winnow.producer.RuleSet;
+import org.winnow.producer.ExclusionSet;
 import org.winnow.producer.ShardSpec;
 import org.winnow.producer.source.EnumeratedSpace;
 import picocli.CommandLine.Option;
@@ -34,8 +34,9 @@ final class SpaceOptions {
     @Option(names = "--max-entry", paramLabel = "E", description = "Largest degree (default 2d+2).")
     Integer maxEntry;
 
-    @Option(names = "--rules", paramLabel = "NAME",
-            description = "Enumeration rule set: base, split, lossless, short (default lossless).")
+    // --rules is the older spelling, kept working; "rules" otherwise means the scorer's keep rules.
+    @Option(names = {"--exclusions", "--rules"}, paramLabel = "NAME",
+            description = "Enumeration exclusion set: base, split, lossless, short (default lossless).")
     String rules;
 
     @Option(names = "--no-products", description = "Drop block-diagonal matrices (products).")
@@ -63,7 +64,7 @@ final class SpaceOptions {
         Bounds c = Bounds.complete(d);
         Bounds bounds = new Bounds(d, or(minRows, c.minRows()), or(maxRows, c.maxRows()), or(maxCols, c.maxCols()),
                 or(maxN, c.maxN()), or(maxEntry, c.maxEntry()));
-        RuleSet ruleSet = RuleSet.byName(rules == null ? DEFAULT_RULES : rules);
+        ExclusionSet ruleSet = ExclusionSet.byName(rules == null ? DEFAULT_RULES : rules);
         if (noProducts) {
             ruleSet = ruleSet.withoutProducts();
         }

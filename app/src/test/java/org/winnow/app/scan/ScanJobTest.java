@@ -29,7 +29,7 @@ import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.local.PipelineException;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.Enumerator;
-import org.winnow.producer.RuleSet;
+import org.winnow.producer.ExclusionSet;
 import org.winnow.producer.ShardSpec;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.stage.ModelScoring;
@@ -46,7 +46,7 @@ class ScanJobTest {
     }
 
     /** The three-folds with at most three rows under the lossless rules: small, and scanned in well under a second. */
-    static final EnumeratedSpace SMALL_SPACE = new EnumeratedSpace(Bounds.complete(3).withRows(1, 3), RuleSet.LOSSLESS,
+    static final EnumeratedSpace SMALL_SPACE = new EnumeratedSpace(Bounds.complete(3).withRows(1, 3), ExclusionSet.LOSSLESS,
             ShardSpec.ALL);
 
     private static ScanJob.Settings boundsSettings(Path out) {

@@ -4,7 +4,7 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 import java.util.Objects;
 import org.winnow.producer.Bounds;
-import org.winnow.producer.RuleSet;
+import org.winnow.producer.ExclusionSet;
 import org.winnow.producer.ShardSpec;
 
 /**
@@ -14,7 +14,7 @@ import org.winnow.producer.ShardSpec;
  * @param rules  the enumeration rule set (not the keep rules of the scan)
  * @param shard  the part of the space, {@link ShardSpec#ALL} for all of it
  */
-public record EnumeratedSpace(Bounds bounds, RuleSet rules, ShardSpec shard) {
+public record EnumeratedSpace(Bounds bounds, ExclusionSet rules, ShardSpec shard) {
     public EnumeratedSpace {
         Objects.requireNonNull(bounds, "bounds");
         Objects.requireNonNull(rules, "rules");
