@@ -44,7 +44,11 @@ public final class KafkaBrokerExtension implements BeforeAllCallback, ParameterR
         return c;
     }
 
-    /** Closed by JUnit when the store of the class context closes. */
+    /**
+     * Closed by JUnit when the store of the class context closes. CloseableResource is deprecated in
+     * favour of AutoCloseable alone; it stays until every JUnit this kit meets closes AutoCloseable values.
+     */
+    @SuppressWarnings("deprecation")
     private record Holder(EmbeddedKafkaBroker broker) implements ExtensionContext.Store.CloseableResource, AutoCloseable {
         @Override
         public void close() {

@@ -116,7 +116,7 @@ final class RunLedger implements AutoCloseable {
 
     @Override
     public void close() {
-        consumer.close(Duration.ofSeconds(1));
+        consumer.close(org.apache.kafka.clients.consumer.CloseOptions.timeout(Duration.ofSeconds(1)));
     }
 
 }

@@ -66,6 +66,6 @@ final class SnapshotFeed implements AutoCloseable {
 
     @Override
     public void close() {
-        consumer.close(Duration.ofSeconds(2));
+        consumer.close(org.apache.kafka.clients.consumer.CloseOptions.timeout(Duration.ofSeconds(2)));
     }
 }

@@ -33,7 +33,9 @@ final class GradedPolynomial {
         if (bits > 64) {
             throw new IllegalArgumentException("too large: exponent vectors need " + bits + " bits");
         }
-        parts = new Map[maxDegree + 1];
+        @SuppressWarnings({"rawtypes", "unchecked"}) // Java cannot create an array of a generic type directly
+        Map<Long, Long>[] empty = new Map[maxDegree + 1];
+        parts = empty;
         for (int k = 0; k <= maxDegree; k++) {
             parts[k] = new HashMap<>();
         }

@@ -5,7 +5,7 @@
  * k-nearest-neighbour vote and to flag candidates unlike anything in the reference set (novelty).
  *
  * <p>Entry points: {@link org.winnow.scorer.model.FrozenModel} (load, save, checksum, predictors),
- * {@link org.winnow.scorer.model.train.Trainer} (training), {@link org.winnow.scorer.model.ReferenceTsv}
+ * {@link org.winnow.scorer.model.Trainer} (training), {@link org.winnow.scorer.model.ReferenceTsv}
  * (the labelled reference file) and {@link org.winnow.scorer.model.Evaluation} (held-out metrics).
  */
 package org.winnow.scorer.model;
