@@ -66,11 +66,11 @@ public final class EnumerateCommand implements Callable<Integer> {
             return Exit.badInput(err, "enumerate", "--threads must be at least 1, got " + threads);
         }
         Bounds bounds = es.bounds();
-        ExclusionSet ruleSet = es.rules();
+        ExclusionSet exclusions = es.rules();
         ShardSpec shardSpec = es.shard();
         Enumerator enumerator = new Enumerator();
         if (count) {
-            EnumerationCounts c = enumerator.count(bounds, ruleSet, shardSpec, threads, () -> false);
+            EnumerationCounts c = enumerator.count(bounds, exclusions, shardSpec, threads, () -> false);
             PrintWriter out = spec.commandLine().getOut();
             for (int m = bounds.minRows(); m <= bounds.maxRows(); m++) {
                 out.println("rows=" + m + ": " + c.rows(m));
@@ -82,13 +82,13 @@ public final class EnumerateCommand implements Callable<Integer> {
         try (ProgressBar progress = progressBar()) {
             if (outFile == null) {
                 PrintWriter out = spec.commandLine().getOut();
-                write(enumerator, bounds, ruleSet, shardSpec, threads, out, progress, () -> CheckedOutput.failed(out));
+                write(enumerator, bounds, exclusions, shardSpec, threads, out, progress, () -> CheckedOutput.failed(out));
                 if (CheckedOutput.failed(out)) {
                     throw new IOException("cannot write standard output (disk full, closed pipe or device error)");
                 }
             } else {
                 // Through a temporary name: a full disk must not leave a partial list under the final name.
-                CheckedOutput.replace(outFile, w -> write(enumerator, bounds, ruleSet, shardSpec, threads, w, progress,
+                CheckedOutput.replace(outFile, w -> write(enumerator, bounds, exclusions, shardSpec, threads, w, progress,
                         () -> false));
             }
         } catch (IOException | UncheckedIOException e) {
@@ -104,11 +104,11 @@ public final class EnumerateCommand implements Callable<Integer> {
     /** How often (in lines) standard output is checked for a failed write, which a PrintWriter only remembers. */
     private static final int CHECK_EVERY = 4096;
 
-    private static void write(Enumerator enumerator, Bounds bounds, RuleSet ruleSet, ShardSpec shardSpec, int threads,
+    private static void write(Enumerator enumerator, Bounds bounds, ExclusionSet exclusions, ShardSpec shardSpec, int threads,
             Writer w,
             ProgressBar progress, java.util.function.BooleanSupplier failed) throws IOException {
         long[] lines = {0};
-        enumerator.run(bounds, ruleSet, shardSpec, threads, e -> {
+        enumerator.run(bounds, exclusions, shardSpec, threads, e -> {
             try {
                 w.write(e.toLine());
                 w.write('\n');
