@@ -121,19 +121,25 @@ public final class RefinedTupleEstimator {
         }
         long chi = invariants.chi(c);
         Interval[] pages = {firstPage.h11(), firstPage.h21(), firstPage.h31(), firstPage.h22()};
+        long start = nanoClock.getAsLong();
         Future<HodgeResult> job = prover().submit(() -> new HodgeEngine(HodgeEngine.DEFAULT_SEEDS,
                 new Interruptible(new TransferredBackend()), nanoClock).compute(c));
         HodgeResult exact;
         try {
             exact = job.get(budget.toNanos(), TimeUnit.NANOSECONDS);
+            if (nanoClock.getAsLong() - start > budget.toNanos()) {
+                // Done, but late: the waiting thread was descheduled past the deadline. The budget is the
+                // rule, whichever thread noticed first, so a result after it counts as out of time.
+                lastProofTimedOut = true;
+                return outOfTime(cheap, budget);
+            }
         } catch (TimeoutException e) {
             // The worker stops at its next exact-backend call; a fresh worker keeps the next budget whole.
             job.cancel(true);
             prover.shutdownNow();
             prover = null;
             lastProofTimedOut = true;
-            return new TupleEstimate(cheap.dim(), cheap.h11(), cheap.h21(), cheap.h31(), cheap.h22(), cheap.product(),
-                    cheap.method() + "; proof out of time after " + budget.toMillis() + " ms");
+            return outOfTime(cheap, budget);
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             job.cancel(true);
@@ -148,6 +154,11 @@ public final class RefinedTupleEstimator {
         TupleEstimate proved = cheap.product() ? product(c.dimension(), exact) : combine(c.dimension(), chi, pages, exact);
         return new TupleEstimate(proved.dim(), proved.h11(), proved.h21(), proved.h31(), proved.h22(), proved.product(),
                 proved.method().replace("engine", "exact engine"));
+    }
+
+    private static TupleEstimate outOfTime(TupleEstimate cheap, Duration budget) {
+        return new TupleEstimate(cheap.dim(), cheap.h11(), cheap.h21(), cheap.h31(), cheap.h22(), cheap.product(),
+                cheap.method() + "; proof out of time after " + budget.toMillis() + " ms");
     }
 
     /** True iff the last {@link #prove} ran out of its budget. */
