@@ -3,9 +3,12 @@ package org.winnow.app.hodge;
 import java.io.BufferedReader;
 import java.io.BufferedWriter;
 import java.io.IOException;
+import java.io.InputStreamReader;
 import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
 import java.io.RandomAccessFile;
+import java.io.UncheckedIOException;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -13,24 +16,25 @@ import java.nio.file.Path;
 import java.nio.file.StandardOpenOption;
 import java.util.ArrayList;
 import java.util.HashSet;
-import java.util.LinkedHashMap;
 import java.util.List;
-import java.util.Map;
+import java.util.Locale;
 import java.util.Optional;
 import java.util.Set;
+import java.util.concurrent.ArrayBlockingQueue;
+import java.util.concurrent.BlockingQueue;
 import java.util.concurrent.Callable;
-import java.util.concurrent.ExecutionException;
-import java.util.concurrent.ExecutorService;
-import java.util.concurrent.Executors;
-import java.util.concurrent.Future;
-import java.util.concurrent.atomic.AtomicInteger;
+import java.util.concurrent.CancellationException;
+import java.util.concurrent.TimeUnit;
+import java.util.concurrent.atomic.AtomicLong;
+import java.util.concurrent.atomic.AtomicReference;
+import java.util.function.Consumer;
 import me.tongfei.progressbar.ConsoleProgressBarConsumer;
 import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.Limits;
-import org.winnow.app.cli.WinnowCli;
-import org.winnow.sink.ScanFiles;
+import org.winnow.app.cli.Terminal;
+import org.winnow.app.scan.SpaceOptions;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.ConfigurationFormatException;
 import org.winnow.geometry.ConfigurationText;
@@ -38,38 +42,71 @@ import org.winnow.geometry.ConfigurationValidator;
 import org.winnow.geometry.hodge.HodgeEngine;
 import org.winnow.geometry.hodge.HodgeResult;
 import org.winnow.geometry.hodge.Status;
+import org.winnow.producer.Enumerator;
+import org.winnow.producer.source.EnumeratedSpace;
+import org.winnow.sink.ScanFiles;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Spec;
 
 /**
- * {@code winnow label}: labels a file of configurations with computed Hodge numbers in the reference
- * format. Resumable: configurations whose canonical text is already in the output are skipped, and
- * every line is appended and flushed on its own, so a kill loses at most the lines in flight (a
- * torn last line is cut off on the next run). Refused configurations are reported on stderr and not
- * written: the reference holds labels only.
+ * {@code winnow label}: labels configurations with computed Hodge numbers in the reference format, from a
+ * file or straight from the producer's enumeration of a space (the bounds of {@code enumerate}), with no
+ * file in between. Resumable: configurations whose canonical text is already in the output are skipped,
+ * and every line is appended and flushed on its own, so a kill loses at most the lines in flight (a torn
+ * last line is cut off on the next run). Refused configurations are reported on stderr and not written:
+ * the reference holds labels only. Products are labelled (method product) with the source {@code product}.
+ *
+ * <p>Work flows through a bounded queue from one reader (the file, or the enumeration on its own worker
+ * threads) to the Hodge workers, so what is held per configuration is the queue alone, whatever the size
+ * of the space, and the enumeration overlaps with the labelling. The one set that grows is that of the
+ * configurations already in the output (for resumption) and, for a file, of those read so far (a file may
+ * repeat a class; an enumeration never does). Lines are written in the order they finish.
  */
 @Command(name = "label", mixinStandardHelpOptions = true,
         description = {
             "Label configurations with exact (or proved-bounded) Hodge numbers into a reference TSV.",
-            "Columns: config  h11  h21  [h31  h22]  status  source. Bounded values are written lo..hi. Rerunning "
-                    + "with the same --out continues where the last run stopped."})
+            "Columns: config  h11  h21  [h31  h22]  status  source. Bounded values are written lo..hi; products "
+                    + "have the source product. Input: --in F, or the bounds of 'enumerate' (--dim 4 ...) to label a "
+                    + "space with no file in between. Rerunning with the same --out continues where the last run "
+                    + "stopped."})
 public final class LabelCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
 
-    @Option(names = "--in", required = true, paramLabel = "F", description = "Configurations, one a line ('#' comments).")
+    @Option(names = "--in", paramLabel = "F", description = "Configurations, one a line ('#' comments).")
     Path in;
+
+    @Mixin
+    SpaceOptions space = new SpaceOptions();
 
     @Option(names = "--out", required = true, paramLabel = "F", description = "The reference TSV to create or extend.")
     Path out;
 
-    @Option(names = "--threads", paramLabel = "N", description = "Worker threads (default: available processors).")
+    @Option(names = "--threads", paramLabel = "N", description = "Hodge worker threads (default: available processors).")
     int threads = Runtime.getRuntime().availableProcessors();
 
+    @Option(names = "--enumerate-threads", paramLabel = "N",
+            description = "With bounds: enumeration threads (default: available processors).")
+    int enumerateThreads = Runtime.getRuntime().availableProcessors();
+
+    @Option(names = "--expect", paramLabel = "N",
+            description = "With bounds: how many matrices the space holds, when known (from 'enumerate --count'), for "
+                    + "an ETA from the start; without it the ETA appears when the enumeration has ended.")
+    Long expect;
+
+    /** Milliseconds between the plain status lines written when stderr is not a terminal; hidden, for tests. */
+    @Option(names = "--status-every-ms", hidden = true, paramLabel = "MS")
+    long statusEveryMs = 10_000;
+
+    /** Marks the end of the queue for one worker; never a real input (its identity is what counts). */
+    private static final Configuration END = Configuration.parse("4:5");
+
+    private static final int QUEUE = 4096;
+
     private PrintWriter err;
-    private int bad;
 
     @Override
     public Integer call() throws InterruptedException {
@@ -78,10 +115,10 @@ public final class LabelCommand implements Callable<Integer> {
             return label();
         } catch (IOException e) {
             return failedWrite(e);
-        } catch (java.io.UncheckedIOException e) {
+        } catch (UncheckedIOException e) {
             return failedWrite(e.getCause());
         } catch (IllegalStateException e) {
-            if (e.getCause() instanceof java.io.UncheckedIOException u) {
+            if (e.getCause() instanceof UncheckedIOException u) {
                 return failedWrite(u.getCause());
             }
             if (e.getCause() instanceof IOException io) {
@@ -102,20 +139,224 @@ public final class LabelCommand implements Callable<Integer> {
     }
 
     private int label() throws IOException, InterruptedException {
-        if (Limits.threadsProblem(threads) != null) {
-            return Exit.badInput(err, "label", Limits.threadsProblem(threads));
+        for (int n : new int[] {threads, enumerateThreads}) {
+            if (Limits.threadsProblem(n) != null) {
+                return Exit.badInput(err, "label", Limits.threadsProblem(n));
+            }
         }
+        if ((in == null) == !space.given()) {
+            return Exit.badInput(err, "label", "give either --in F or the bounds of a space (--dim D ...), not "
+                    + (in == null ? "neither" : "both"));
+        }
+        if (expect != null && (in != null || expect < 0)) {
+            return Exit.badInput(err, "label", "--expect goes with bounds and must be at least 0, got " + expect
+                    + (in != null ? " with --in" : ""));
+        }
+        if (statusEveryMs < 1) {
+            return Exit.badInput(err, "label", "--status-every-ms must be at least 1, got " + statusEveryMs);
+        }
+        EnumeratedSpace es = null;
+        if (in == null) {
+            es = space.space();
+            if (es.bounds().dim() < 2) {
+                return Exit.badInput(err, "label", "dimension " + es.bounds().dim()
+                        + ": Hodge numbers need dimension 2, 3 or 4");
+            }
+        } else if (Files.isDirectory(in)) {
+            return Exit.badInput(err, "label", in + ": is a directory; give a file of configurations, one a line");
+        } else if (!Files.exists(in)) {
+            return Exit.badInput(err, "label", in + ": no such file");
+        }
+        long startNanos = System.nanoTime();
         Set<String> done = new HashSet<>();
         Boolean fourfoldColumns = readExisting(done);
-        Map<String, Configuration> pending = new LinkedHashMap<>();
-        int skipped = 0;
-        if (Files.isDirectory(in)) {
-            return Exit.badInput(err, "label", in + ": is a directory; give a file of configurations, one a line");
+        Counts counts = new Counts();
+        long total;
+        boolean wide;
+        if (es == null) {
+            // A cheap first pass: the total for the ETA and, for a new output, whether it needs four-fold columns.
+            FilePass pass = prepass(fourfoldColumns == null);
+            total = pass.lines();
+            wide = fourfoldColumns != null ? fourfoldColumns : pass.anyFourfold();
+        } else {
+            boolean four = es.bounds().dim() == 4;
+            if (fourfoldColumns != null && fourfoldColumns != four) {
+                return Exit.badInput(err, "label", out + " has " + (fourfoldColumns ? "four-fold" : "three-fold")
+                        + " columns but the space has dimension " + es.bounds().dim());
+            }
+            wide = four;
+            total = expect == null ? -1 : expect;
         }
+        BlockingQueue<Configuration> queue = new ArrayBlockingQueue<>(QUEUE);
+        AtomicReference<Throwable> failure = new AtomicReference<>();
+        long enumerated = -1;
+        try (BufferedWriter writer = openForAppend(wide)) {
+            List<Thread> workers = new ArrayList<>();
+            for (int i = 0; i < threads; i++) {
+                Thread t = new Thread(() -> work(queue, writer, wide, counts, failure), "label-" + i);
+                t.setDaemon(true);
+                workers.add(t);
+                t.start();
+            }
+            Progress progress = new Progress(counts, total, startNanos, statusEveryMs, err);
+            try {
+                Consumer<Configuration> offer = c -> {
+                    try {
+                        while (!queue.offer(c, 200, TimeUnit.MILLISECONDS)) {
+                            if (failure.get() != null) {
+                                throw new CancellationException("a worker failed");
+                            }
+                        }
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                        throw new CancellationException("interrupted");
+                    }
+                };
+                if (es == null) {
+                    readInput(done, offer, counts);
+                } else {
+                    enumerated = new Enumerator().run(es.bounds(), es.rules(), es.shard(), enumerateThreads, e -> {
+                        counts.enumerated.incrementAndGet();
+                        if (done.contains(e.text())) {
+                            counts.skipped.incrementAndGet();
+                        } else {
+                            offer.accept(e.configuration());
+                        }
+                    });
+                    progress.total(enumerated);
+                }
+            } catch (CancellationException e) {
+                if (failure.get() == null) {
+                    throw e;
+                }
+            } finally {
+                // Workers that failed keep taking until END, so these puts never block for good.
+                for (int i = 0; i < threads; i++) {
+                    queue.put(END);
+                }
+                for (Thread t : workers) {
+                    t.join();
+                }
+                progress.close();
+            }
+        }
+        Throwable f = failure.get();
+        if (f instanceof RuntimeException r) {
+            throw r;
+        }
+        if (f != null) {
+            throw new IllegalStateException("labelling failed: " + f, f);
+        }
+        err.printf(Locale.ROOT, "winnow label: %d labelled (%d exact, %d bounded; %d of them products), %d refused, %d"
+                + " already labelled or repeated; %.1f s wall%n", counts.exact.get() + counts.bounded.get(),
+                counts.exact.get(), counts.bounded.get(), counts.products.get(), counts.refused.get(),
+                counts.skipped.get(), (System.nanoTime() - startNanos) / 1e9);
+        if (expect != null && enumerated != expect) {
+            err.printf(Locale.ROOT, "winnow label: note: the space held %d matrices, --expect said %d%n", enumerated,
+                    expect);
+        }
+        err.flush();
+        return counts.bad.get() == 0 ? 0 : Exit.BAD_INPUT;
+    }
+
+    /** Counters shared by the reader, the workers and the status line. */
+    static final class Counts {
+        final AtomicLong exact = new AtomicLong();
+        final AtomicLong bounded = new AtomicLong();
+        final AtomicLong refused = new AtomicLong();
+        final AtomicLong products = new AtomicLong();
+        final AtomicLong skipped = new AtomicLong();
+        final AtomicLong bad = new AtomicLong();
+        final AtomicLong enumerated = new AtomicLong();
+
+        /** Inputs dealt with, whichever way: the progress numerator, comparable with the count of inputs. */
+        long settled() {
+            return exact.get() + bounded.get() + refused.get() + skipped.get() + bad.get();
+        }
+    }
+
+    private void work(BlockingQueue<Configuration> queue, BufferedWriter writer, boolean wide, Counts counts,
+            AtomicReference<Throwable> failure) {
+        HodgeEngine engine = HodgeEngine.standard();
+        try {
+            while (true) {
+                Configuration c = queue.take();
+                if (c == END) {
+                    return;
+                }
+                if (failure.get() != null) {
+                    continue;
+                }
+                HodgeResult r = engine.compute(c);
+                if (r.status() == Status.REFUSED || (r.dim() == 4) != wide) {
+                    counts.refused.incrementAndGet();
+                    err.println("winnow label: " + c.toText() + ": not labelled: "
+                            + (r.status() == Status.REFUSED ? r.reason()
+                                    : "dimension " + r.dim() + " does not match the file's columns; label "
+                                            + "four-folds and lower dimensions into separate files"));
+                    err.flush();
+                    continue;
+                }
+                String line = HodgeFormat.tsv(c, r, wide);
+                synchronized (writer) {
+                    writeLine(writer, line);
+                }
+                if (r.isProduct()) {
+                    counts.products.incrementAndGet();
+                }
+                (r.status() == Status.EXACT ? counts.exact : counts.bounded).incrementAndGet();
+            }
+        } catch (Throwable e) {
+            failure.compareAndSet(null, e);
+            try {
+                while (queue.take() != END) {
+                    // Drain, so that the reader never waits on a full queue.
+                }
+            } catch (InterruptedException x) {
+                Thread.currentThread().interrupt();
+            }
+        }
+    }
+
+    private record FilePass(long lines, boolean anyFourfold) {}
+
+    private BufferedReader open(Path file) throws IOException {
         // Bytes that are not UTF-8 become U+FFFD: that line is refused with its number, the rest is read.
-        try (BufferedReader reader = new BufferedReader(new java.io.InputStreamReader(Files.newInputStream(in),
-                StandardCharsets.UTF_8.newDecoder().onMalformedInput(java.nio.charset.CodingErrorAction.REPLACE)
-                        .onUnmappableCharacter(java.nio.charset.CodingErrorAction.REPLACE)), 1 << 16)) {
+        return new BufferedReader(new InputStreamReader(Files.newInputStream(file),
+                StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPLACE)
+                        .onUnmappableCharacter(CodingErrorAction.REPLACE)), 1 << 16);
+    }
+
+    /** Counts the input lines that are not comments and, if asked, whether any parses as a four-fold. */
+    private FilePass prepass(boolean lookForFourfolds) throws IOException {
+        long lines = 0;
+        int number = 0;
+        boolean four = false;
+        try (BufferedReader reader = open(in)) {
+            String line;
+            while ((line = reader.readLine()) != null) {
+                number++;
+                String body = ConfigurationText.stripComment(line);
+                if (body == null) {
+                    continue;
+                }
+                lines++;
+                if (lookForFourfolds && !four) {
+                    try {
+                        four = ConfigurationText.parse(body.strip(), number).dimension() == 4;
+                    } catch (ConfigurationFormatException e) {
+                        // Reported with its line number by the main pass.
+                    }
+                }
+            }
+        } catch (NoSuchFileException e) {
+            throw new IllegalArgumentException(in + ": no such file", e);
+        }
+        return new FilePass(lines, four);
+    }
+
+    private void readInput(Set<String> done, Consumer<Configuration> offer, Counts counts) throws IOException {
+        try (BufferedReader reader = open(in)) {
             String line;
             int number = 0;
             while ((line = reader.readLine()) != null) {
@@ -124,69 +365,18 @@ public final class LabelCommand implements Callable<Integer> {
                 if (body == null) {
                     continue;
                 }
-                Optional<Configuration> c = parse(body.strip(), number);
+                Optional<Configuration> c = parse(body.strip(), number, counts);
                 if (c.isEmpty()) {
                     continue;
                 }
                 Configuration canonical = c.get().canonical();
-                String key = canonical.toText();
-                if (done.contains(key) || pending.containsKey(key)) {
-                    skipped++;
+                if (done.add(canonical.toText())) {
+                    offer.accept(canonical);
                 } else {
-                    pending.put(key, canonical);
+                    counts.skipped.incrementAndGet();
                 }
             }
-        } catch (NoSuchFileException e) {
-            return Exit.badInput(err, "label", in + ": no such file");
         }
-        if (fourfoldColumns == null) {
-            fourfoldColumns = pending.values().stream().anyMatch(c -> c.dimension() == 4);
-        }
-        boolean wide = fourfoldColumns;
-        AtomicInteger exact = new AtomicInteger();
-        AtomicInteger bounded = new AtomicInteger();
-        AtomicInteger refused = new AtomicInteger();
-        try (BufferedWriter writer = openForAppend(wide);
-                ProgressBar progress = progressBar(pending.size())) {
-            ThreadLocal<HodgeEngine> engines = ThreadLocal.withInitial(HodgeEngine::standard);
-            ExecutorService pool = Executors.newFixedThreadPool(threads);
-            try {
-                List<Future<?>> futures = new ArrayList<>();
-                for (Configuration c : pending.values()) {
-                    futures.add(pool.submit(() -> {
-                        HodgeResult r = engines.get().compute(c);
-                        synchronized (writer) {
-                            if (r.status() == Status.REFUSED || (r.dim() == 4) != wide) {
-                                refused.incrementAndGet();
-                                err.println("winnow label: " + c.toText() + ": not labelled: "
-                                        + (r.status() == Status.REFUSED ? r.reason()
-                                                : "dimension " + r.dim() + " does not match the file's columns; label "
-                                                        + "four-folds and lower dimensions into separate files"));
-                                err.flush();
-                            } else {
-                                (r.status() == Status.EXACT ? exact : bounded).incrementAndGet();
-                                writeLine(writer, HodgeFormat.tsv(c, r, wide));
-                            }
-                            if (progress != null) {
-                                progress.step();
-                            }
-                        }
-                        return null;
-                    }));
-                }
-                for (Future<?> f : futures) {
-                    f.get();
-                }
-            } catch (ExecutionException e) {
-                throw new IllegalStateException("labelling failed: " + e.getCause(), e.getCause());
-            } finally {
-                pool.shutdownNow();
-            }
-        }
-        err.printf("winnow label: %d labelled (%d exact, %d bounded), %d refused, %d already labelled or repeated%n",
-                exact.get() + bounded.get(), exact.get(), bounded.get(), refused.get(), skipped);
-        err.flush();
-        return bad == 0 ? 0 : Exit.BAD_INPUT;
     }
 
     private static void writeLine(BufferedWriter writer, String line) {
@@ -195,32 +385,32 @@ public final class LabelCommand implements Callable<Integer> {
             writer.write('\n');
             writer.flush();
         } catch (IOException e) {
-            throw new java.io.UncheckedIOException("cannot append to the reference file", e);
+            throw new UncheckedIOException("cannot append to the reference file", e);
         }
     }
 
-    private Optional<Configuration> parse(String input, int number) {
+    private Optional<Configuration> parse(String input, int number, Counts counts) {
         Configuration c;
         try {
             c = ConfigurationText.parse(input, number);
         } catch (ConfigurationFormatException e) {
-            reportBad(number, input, e.getMessage());
+            reportBad(number, input, e.getMessage(), counts);
             return Optional.empty();
         }
         Optional<String> problem = ConfigurationValidator.problemForCalabiYau(c);
         if (problem.isPresent()) {
-            reportBad(number, input, problem.get());
+            reportBad(number, input, problem.get(), counts);
             return Optional.empty();
         }
         if (c.dimension() < 2) {
-            reportBad(number, input, "dimension " + c.dimension() + ": Hodge numbers need dimension 2, 3 or 4");
+            reportBad(number, input, "dimension " + c.dimension() + ": Hodge numbers need dimension 2, 3 or 4", counts);
             return Optional.empty();
         }
         return Optional.of(c);
     }
 
-    private void reportBad(int number, String input, String reason) {
-        bad++;
+    private void reportBad(int number, String input, String reason, Counts counts) {
+        counts.bad.incrementAndGet();
         err.println("winnow label: " + in + " line " + number + " '" + Limits.excerpt(input) + "': " + reason);
     }
 
@@ -246,21 +436,24 @@ public final class LabelCommand implements Callable<Integer> {
                 raf.setLength(keep);
             }
         }
-        List<String> lines = Files.readAllLines(out, StandardCharsets.UTF_8);
-        if (lines.isEmpty()) {
-            return null;
-        }
-        String header = lines.get(0);
-        if (!header.equals(HodgeFormat.HEADER) && !header.equals(HodgeFormat.HEADER_4)) {
-            throw new IllegalArgumentException(out + " is not a reference file (header '" + header + "')");
-        }
-        for (String line : lines.subList(1, lines.size())) {
-            int tab = line.indexOf('\t');
-            if (tab > 0) {
-                done.add(line.substring(0, tab));
+        try (BufferedReader reader = Files.newBufferedReader(out, StandardCharsets.UTF_8)) {
+            String header = reader.readLine();
+            if (header == null) {
+                return null;
             }
+            if (!header.equals(HodgeFormat.HEADER) && !header.equals(HodgeFormat.HEADER_4)) {
+                throw new IllegalArgumentException(out + " is not a reference file (header '"
+                        + Limits.excerpt(header) + "')");
+            }
+            String line;
+            while ((line = reader.readLine()) != null) {
+                int tab = line.indexOf('\t');
+                if (tab > 0) {
+                    done.add(line.substring(0, tab));
+                }
+            }
+            return header.equals(HodgeFormat.HEADER_4);
         }
-        return header.equals(HodgeFormat.HEADER_4);
     }
 
     private BufferedWriter openForAppend(boolean wide) throws IOException {
@@ -275,11 +468,69 @@ public final class LabelCommand implements Callable<Integer> {
         return w;
     }
 
-    private ProgressBar progressBar(int total) {
-        if (System.console() == null) {
-            return null;
+    /**
+     * Progress on stderr: a bar with an ETA on a terminal, else a plain line every {@code periodMs}. From
+     * bounds without {@code --expect} the total is known only once the enumeration has ended; until then
+     * the status shows the count, the rate and how far the enumeration has got, and no ETA.
+     */
+    static final class Progress {
+        private final Thread thread;
+        private volatile long total;
+
+        Progress(Counts counts, long total, long startNanos, long periodMs, PrintWriter plain) {
+            this.total = total;
+            boolean terminal = Terminal.stderrIsTerminal();
+            thread = new Thread(() -> {
+                try {
+                    if (terminal) {
+                        try (ProgressBar bar = new ProgressBarBuilder().setTaskName("label").setInitialMax(this.total)
+                                .showSpeed().setConsumer(new ConsoleProgressBarConsumer(System.err)).build()) {
+                            try {
+                                while (!Thread.currentThread().isInterrupted()) {
+                                    if (this.total >= 0 && bar.getMax() != this.total) {
+                                        bar.maxHint(this.total);
+                                    }
+                                    bar.setExtraMessage(this.total < 0 ? "enumerated " + counts.enumerated.get() : "");
+                                    bar.stepTo(counts.settled());
+                                    Thread.sleep(1_000);
+                                }
+                            } finally {
+                                bar.stepTo(counts.settled());
+                            }
+                        }
+                    } else {
+                        while (true) {
+                            Thread.sleep(periodMs);
+                            plain.println(line(counts, this.total, startNanos));
+                            plain.flush();
+                        }
+                    }
+                } catch (InterruptedException e) {
+                    // The run is over.
+                }
+            }, "label-progress");
+            thread.setDaemon(true);
+            thread.start();
         }
-        return new ProgressBarBuilder().setTaskName("label").setInitialMax(total)
-                .setConsumer(new ConsoleProgressBarConsumer(System.err)).build();
+
+        void total(long t) {
+            total = t;
+        }
+
+        void close() throws InterruptedException {
+            thread.interrupt();
+            thread.join(2_000);
+        }
+
+        static String line(Counts counts, long total, long startNanos) {
+            double seconds = (System.nanoTime() - startNanos) / 1e9;
+            long settled = counts.settled();
+            double rate = settled / Math.max(seconds, 1e-9);
+            String of = total >= 0
+                    ? String.format(Locale.ROOT, " of %d (%.1f%%), ETA %.0f s", total,
+                            100.0 * settled / Math.max(total, 1), Math.max(0, total - settled) / Math.max(rate, 1e-9))
+                    : " (enumerated " + counts.enumerated.get() + ", total not known yet)";
+            return String.format(Locale.ROOT, "winnow label: %d done%s, %.0f/s, %.0f s", settled, of, rate, seconds);
+        }
     }
 }

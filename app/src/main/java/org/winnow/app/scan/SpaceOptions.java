@@ -12,7 +12,7 @@ import picocli.CommandLine.Option;
  * absent one takes the default of {@link Bounds#complete}, and {@link #given()} tells whether any was
  * named at all (scan uses that to choose between bounds and an input file).
  */
-final class SpaceOptions {
+public final class SpaceOptions {
     static final int DEFAULT_DIM = 3;
     static final String DEFAULT_RULES = "lossless";
 
@@ -46,7 +46,7 @@ final class SpaceOptions {
     String shard;
 
     /** True iff any of these options was given. */
-    boolean given() {
+    public boolean given() {
         return dim != null || minRows != null || maxRows != null || maxCols != null || maxN != null || maxEntry != null
                 || rules != null || noProducts || shard != null;
     }
@@ -56,7 +56,7 @@ final class SpaceOptions {
      *
      * @throws IllegalArgumentException with a one-line message naming the bad value
      */
-    EnumeratedSpace space() {
+    public EnumeratedSpace space() {
         int d = dim == null ? DEFAULT_DIM : dim;
         if (d < 1 || d > Bounds.MAX_DIM) {
             throw new IllegalArgumentException("dim must be in 1.." + Bounds.MAX_DIM + ", got " + d);
