@@ -2,6 +2,8 @@ package org.winnow.kafka;
 
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Candidate;
+import org.winnow.geometry.hodge.Basis;
+import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
@@ -29,7 +31,12 @@ public final class WireTypes {
     public static final int VERDICT = 124;
     public static final int REASON = 125;
     public static final int SLIM_REJECT = 126;
-    public static final int PREDICTION = 127;
+    /** The prediction of plain values before each carried its basis; retired, never reused. */
+    public static final int RETIRED_PREDICTION_PLAIN = 127;
+    /** The prediction whose every value carries its basis and confidence. */
+    public static final int PREDICTION = 128;
+    public static final int PREDICTED_VALUE = 129;
+    public static final int BASIS = 132;
     public static final int SHARD_PROGRESS = 130;
     public static final int SOURCE_REPORT = 131;
     public static final int METRIC_SNAPSHOT = 140;
@@ -57,6 +64,8 @@ public final class WireTypes {
                 .register(Candidate.class, CANDIDATE)
                 .register(ExactInvariants.class, EXACT_INVARIANTS)
                 .register(Prediction.class, PREDICTION)
+                .register(PredictedValue.class, PREDICTED_VALUE)
+                .register(Basis.class, BASIS)
                 .register(Scored.class, SCORED)
                 .register(Verdict.class, VERDICT)
                 .register(Reason.class, REASON)

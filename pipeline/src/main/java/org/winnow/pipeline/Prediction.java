@@ -1,32 +1,83 @@
 package org.winnow.pipeline;
 
+import java.util.Objects;
 import org.winnow.geometry.Checks;
 
 /**
- * What the frozen model says about one candidate: the one record of a prediction, from the model's
- * predictor through the scorer's rules to the sink's lines and the wire.
+ * What the scorer predicts for one candidate: the one record of a prediction, from the model's predictor
+ * through the scorer's rules to the sink's lines and the wire. Every Hodge number carries how it is known
+ * ({@link PredictedValue}: proved, bounded or estimated) and a confidence that is 1 only for a proof.
  *
- * @param h11              predicted h^{1,1} (the winner of the neighbour vote)
- * @param confidence       the winner's share of the vote weight, in [0, 1]
- * @param h21              h^{2,1}: for a three-fold {@code h11 - chi/2} exactly; for a four-fold from the
- *                         nearest voting neighbour of the winning class whose tuple satisfies
- *                         {@code chi = 48 + 6(h11 - h21 + h31)}; null when not determined (no consistent
- *                         value, another dimension, or a candidate of another dimension than the model's)
- * @param h31              four-folds only, as h21; null otherwise
- * @param h22              four-folds only, {@code 44 + 4 h11 - 2 h21 + 4 h31}; null otherwise
+ * @param h11Value         h^{1,1}
+ * @param h21Value         h^{2,1}; null when not determined
+ * @param h31Value         h^{3,1}; four-folds only, null otherwise or when not determined
+ * @param h22Value         h^{2,2}; four-folds only, null otherwise or when not determined
+ * @param product          true for a block-diagonal candidate: identities of full holonomy fail for it, so
+ *                         values derived through them (h21, h31, h22) never reject it
  * @param novelty          calibrated novelty in [0, 1]: near 1 means unlike the reference set
  * @param nearestReference canonical text of the nearest reference configuration, or "" if none
  */
-public record Prediction(int h11, double confidence, Integer h21, Integer h31, Integer h22, double novelty,
-        String nearestReference) {
+public record Prediction(PredictedValue h11Value, PredictedValue h21Value, PredictedValue h31Value,
+        PredictedValue h22Value, boolean product, double novelty, String nearestReference) {
     public Prediction {
-        Checks.requireArgument(confidence >= 0 && confidence <= 1, "confidence must be in [0, 1]: %s", confidence);
+        Objects.requireNonNull(h11Value, "h11Value");
         Checks.requireArgument(novelty >= 0 && novelty <= 1, "novelty must be in [0, 1]: %s", novelty);
         nearestReference = nearestReference == null ? "" : nearestReference;
+    }
+
+    /**
+     * A prediction with nothing proved: every given value estimated with one confidence, kept below 1
+     * (which only a proof shows).
+     */
+    public Prediction(int h11, double confidence, Integer h21, Integer h31, Integer h22, double novelty,
+            String nearestReference) {
+        this(unproved(h11, confidence), unproved(h21, confidence), unproved(h31, confidence), unproved(h22, confidence),
+                false, novelty, nearestReference);
+    }
+
+    private static PredictedValue unproved(Integer v, double confidence) {
+        Checks.requireArgument(confidence >= 0 && confidence <= 1, "confidence must be in [0, 1]: %s", confidence);
+        return v == null ? null : PredictedValue.estimated(v, Math.min(confidence, Math.nextDown(1.0)));
     }
 
     /** A prediction without the four-fold numbers h31 and h22 (a three-fold, or a stand-in model). */
     public static Prediction of(int h11, double confidence, Integer h21, double novelty, String nearestReference) {
         return new Prediction(h11, confidence, h21, null, null, novelty, nearestReference);
+    }
+
+    /** The predicted h11. */
+    public int h11() {
+        return Math.toIntExact(h11Value.value());
+    }
+
+    /** The confidence of h11: 1 when proved. */
+    public double confidence() {
+        return h11Value.confidence();
+    }
+
+    /** The predicted h21, or null. */
+    public Integer h21() {
+        return h21Value == null ? null : Math.toIntExact(h21Value.value());
+    }
+
+    /** The predicted h31, or null. */
+    public Integer h31() {
+        return h31Value == null ? null : Math.toIntExact(h31Value.value());
+    }
+
+    /** The predicted h22, or null. */
+    public Integer h22() {
+        return h22Value == null ? null : Math.toIntExact(h22Value.value());
+    }
+
+    /** The value of {@code invariant} (a predicted one), or null when not determined. */
+    public PredictedValue value(Keepable invariant) {
+        return switch (invariant) {
+            case H11 -> h11Value;
+            case H21 -> h21Value;
+            case H31 -> h31Value;
+            case H22 -> h22Value;
+            default -> throw new IllegalArgumentException(invariant.label() + " is not predicted");
+        };
     }
 }

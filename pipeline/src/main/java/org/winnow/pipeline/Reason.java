@@ -22,7 +22,23 @@ public enum Reason {
     EXACT_COLS_OUT_OF_RANGE(Keepable.COLS),
     /** The number of blocks lies outside its keep range. */
     EXACT_BLOCKS_OUT_OF_RANGE(Keepable.BLOCKS),
-    /** h^{1,1} is confidently predicted outside its keep range and the candidate looks familiar. */
+    /** h^{1,1} is proved outside its keep range. */
+    PROVED_H11_OUT_OF_RANGE(Keepable.H11, Kind.PROVED),
+    /** h^{1,1} is proved to lie in an interval wholly outside its keep range. */
+    BOUNDED_H11_OUT_OF_RANGE(Keepable.H11, Kind.BOUNDED),
+    /** h^{2,1} is proved outside its keep range. */
+    PROVED_H21_OUT_OF_RANGE(Keepable.H21, Kind.PROVED),
+    /** h^{2,1} is proved to lie in an interval wholly outside its keep range. */
+    BOUNDED_H21_OUT_OF_RANGE(Keepable.H21, Kind.BOUNDED),
+    /** h^{3,1} is proved outside its keep range. */
+    PROVED_H31_OUT_OF_RANGE(Keepable.H31, Kind.PROVED),
+    /** h^{3,1} is proved to lie in an interval wholly outside its keep range. */
+    BOUNDED_H31_OUT_OF_RANGE(Keepable.H31, Kind.BOUNDED),
+    /** h^{2,2} is proved outside its keep range. */
+    PROVED_H22_OUT_OF_RANGE(Keepable.H22, Kind.PROVED),
+    /** h^{2,2} is proved to lie in an interval wholly outside its keep range. */
+    BOUNDED_H22_OUT_OF_RANGE(Keepable.H22, Kind.BOUNDED),
+    /** h^{1,1} is not proved but confidently predicted outside its keep range, and the candidate looks familiar. */
     PREDICTED_H11_OUT_OF_RANGE(Keepable.H11),
     /** The exact Euler characteristic does not leave the residue a rule asks for (such as chi%24=0). */
     EXACT_CHI_WRONG_RESIDUE(Keepable.CHI, "exact-chi-wrong-residue"),
@@ -57,6 +73,17 @@ public enum Reason {
         this.residue = false;
     }
 
+    /** How a predicted value outside its range is known, for the rejections that are not by vote. */
+    enum Kind { PROVED, BOUNDED }
+
+    /** A rejection because {@code invariant} is proved (or bounded) outside its range. */
+    Reason(Keepable invariant, Kind kind) {
+        this.code = kind.name().toLowerCase(java.util.Locale.ROOT) + "-" + invariant.label() + "-out-of-range";
+        this.verdict = Verdict.REJECT;
+        this.invariant = invariant;
+        this.residue = true; // not the invariant's one range rejection (that is the vote's)
+    }
+
     /** A rejection because {@code invariant} leaves the wrong residue (a residue rule, not a range). */
     Reason(Keepable invariant, String code) {
         this.code = code;
@@ -73,7 +100,10 @@ public enum Reason {
         this.residue = false;
     }
 
-    /** True for the rejection of a residue rule (its invariant's range rejection is another reason). */
+    /**
+     * True for a rejection that is not its invariant's {@link Keepable#rejection()}: a residue rule's, or a
+     * predicted value's proved or bounded one.
+     */
     public boolean residue() {
         return residue;
     }
@@ -96,6 +126,16 @@ public enum Reason {
     /** The reasons that carry {@code verdict}, in declaration order. */
     public static List<Reason> withVerdict(Verdict verdict) {
         return Arrays.stream(values()).filter(r -> r.verdict == verdict).toList();
+    }
+
+    /** The rejection of a predicted {@code invariant} proved outside its range. */
+    public static Reason provedOutside(Keepable invariant) {
+        return ofCode("proved-" + invariant.label() + "-out-of-range");
+    }
+
+    /** The rejection of a predicted {@code invariant} whose proved interval lies wholly outside its range. */
+    public static Reason boundedOutside(Keepable invariant) {
+        return ofCode("bounded-" + invariant.label() + "-out-of-range");
     }
 
     /** The reason whose code is {@code code}. */

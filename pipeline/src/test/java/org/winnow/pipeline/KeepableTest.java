@@ -29,7 +29,9 @@ class KeepableTest {
     void codesAreTheOnesFilesAndManifestsAlreadyCarry() {
         // The codes are a file format: scan directories written before the vocabulary moved must still read.
         assertEquals(List.of("exact-dim-out-of-range", "exact-chi-out-of-range", "exact-rows-out-of-range",
-                "exact-cols-out-of-range", "exact-blocks-out-of-range", "predicted-h11-out-of-range",
+                "exact-cols-out-of-range", "exact-blocks-out-of-range", "proved-h11-out-of-range",
+                "bounded-h11-out-of-range", "proved-h21-out-of-range", "bounded-h21-out-of-range", "proved-h31-out-of-range",
+                "bounded-h31-out-of-range", "proved-h22-out-of-range", "bounded-h22-out-of-range", "predicted-h11-out-of-range",
                 "exact-chi-wrong-residue", "predicted-h21-out-of-range", "predicted-h31-out-of-range",
                 "predicted-h22-out-of-range", "kept-in-range", "kept-as-novel", "kept-low-confidence",
                 "kept-undecided"), java.util.Arrays.stream(Reason.values()).map(Reason::code).toList());

@@ -1,35 +1,61 @@
 package org.winnow.sink;
 
 import org.winnow.geometry.Checks;
+import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
 import org.winnow.pipeline.Verdict;
 
 /**
- * One line of a rejects file: {@code config chi h11 h11_confidence h21 novelty rejected_because},
- * tab-separated, with {@value SurvivorLine#UNDETERMINED} for an undetermined {@code h21}.
+ * One line of a rejects file (format 2): {@code config chi}, the value, basis and confidence of each of
+ * h11, h21, h31, h22 as in {@link SurvivorLine}, then {@code novelty rejected_because}, tab-separated.
+ * Format-1 lines ({@code config chi h11 h11_confidence h21 novelty rejected_because}) are still read,
+ * every value as estimated.
  */
-public record RejectLine(String config, long chi, int h11, double confidence, Integer h21, double novelty,
-        Reason rejectedBecause) {
+public record RejectLine(String config, long chi, PredictedValue h11Value, PredictedValue h21Value,
+        PredictedValue h31Value, PredictedValue h22Value, double novelty, Reason rejectedBecause) {
     /** The column names, in order. */
-    public static final String COLUMNS = "config\tchi\th11\th11_confidence\th21\tnovelty\trejected_because";
+    public static final String COLUMNS = "config\tchi\t" + SurvivorLine.valueColumns() + "\tnovelty\trejected_because";
 
     /** The line of a rejected record. */
     public static String format(Scored s) {
         Checks.requireArgument(s.verdict() == Verdict.REJECT, "not a reject: %s", s.reason().code());
-        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + s.prediction().h11() + '\t'
-                + SurvivorLine.fraction(s.prediction().confidence()) + '\t'
-                + (s.prediction().h21() == null ? SurvivorLine.UNDETERMINED : s.prediction().h21()) + '\t'
-                + SurvivorLine.fraction(s.novelty()) + '\t' + s.reason().code();
+        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + SurvivorLine.values(s.prediction())
+                + '\t' + SurvivorLine.fraction(s.novelty()) + '\t' + s.reason().code();
     }
 
-    /** Parses a data line. */
+    /** Parses a data line of format 2 or 1. */
     public static RejectLine parse(String line) {
         String[] f = line.split("\t", -1);
-        Checks.requireArgument(f.length == 7, "a reject line has 7 fields, found %d: %s", f.length, line);
-        Reason r = Reason.ofCode(f[6]);
-        Checks.requireArgument(r.verdict() == Verdict.REJECT, "not a reject reason: %s", f[6]);
-        return new RejectLine(f[0], Long.parseLong(f[1]), Integer.parseInt(f[2]), Double.parseDouble(f[3]),
-                f[4].equals(SurvivorLine.UNDETERMINED) ? null : Integer.valueOf(f[4]), Double.parseDouble(f[5]), r);
+        if (f.length == 7) {
+            double c = Double.parseDouble(f[3]);
+            return new RejectLine(f[0], Long.parseLong(f[1]), SurvivorLine.old(f[2], c),
+                    f[4].equals(SurvivorLine.UNDETERMINED) ? null : SurvivorLine.old(f[4], c), null, null,
+                    Double.parseDouble(f[5]), rejectReason(f[6]));
+        }
+        Checks.requireArgument(f.length == 16, "a reject line has 16 fields (7 in format 1), found %d: %s", f.length, line);
+        return new RejectLine(f[0], Long.parseLong(f[1]), SurvivorLine.parseValue(f, 2), SurvivorLine.parseValue(f, 5),
+                SurvivorLine.parseValue(f, 8), SurvivorLine.parseValue(f, 11), Double.parseDouble(f[14]), rejectReason(f[15]));
+    }
+
+    private static Reason rejectReason(String code) {
+        Reason r = Reason.ofCode(code);
+        Checks.requireArgument(r.verdict() == Verdict.REJECT, "not a reject reason: %s", code);
+        return r;
+    }
+
+    /** The predicted h11. */
+    public int h11() {
+        return Math.toIntExact(h11Value.value());
+    }
+
+    /** The confidence of h11 (1 when proved). */
+    public double confidence() {
+        return h11Value.confidence();
+    }
+
+    /** The predicted h21, or null. */
+    public Integer h21() {
+        return h21Value == null ? null : Math.toIntExact(h21Value.value());
     }
 }

@@ -2,43 +2,109 @@ package org.winnow.sink;
 
 import java.util.Locale;
 import org.winnow.geometry.Checks;
+import org.winnow.geometry.hodge.Basis;
+import org.winnow.pipeline.Prediction;
+import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
+import org.winnow.pipeline.Verdict;
 
 /**
- * One line of a survivors file: {@code config chi h11 h11_confidence h21 novelty kept_because
- * nearest_reference}, tab-separated. {@code h21} is {@value #UNDETERMINED} where the model does not
- * determine it; {@code nearest_reference} is {@value #UNDETERMINED} when there is none.
+ * One line of a survivors file (format 2): {@code config chi}, then for each of h11, h21, h31, h22 its
+ * value, basis ({@code proved}, {@code bounded LO..HI} or {@code estimated}) and confidence, then
+ * {@code novelty kept_because nearest_reference}, tab-separated. A value the model does not determine (h31
+ * and h22 of a three-fold) is {@value #UNDETERMINED} in all three of its columns; so is an absent
+ * {@code nearest_reference}. Format-1 lines ({@code config chi h11 h11_confidence h21 novelty kept_because
+ * nearest_reference}) are still read, every value as estimated: they did not say how a value was known.
  */
-public record SurvivorLine(String config, long chi, int h11, double confidence, Integer h21, double novelty,
-        Reason keptBecause, String nearestReference) {
+public record SurvivorLine(String config, long chi, PredictedValue h11Value, PredictedValue h21Value,
+        PredictedValue h31Value, PredictedValue h22Value, double novelty, Reason keptBecause, String nearestReference) {
     /** The column names, in order. */
-    public static final String COLUMNS = "config\tchi\th11\th11_confidence\th21\tnovelty\tkept_because\tnearest_reference";
+    public static final String COLUMNS = "config\tchi\t" + valueColumns() + "\tnovelty\tkept_because\tnearest_reference";
+    /** The column names of format 1. */
+    public static final String COLUMNS_V1 = "config\tchi\th11\th11_confidence\th21\tnovelty\tkept_because\tnearest_reference";
     /** Written for a value that is not determined. */
     public static final String UNDETERMINED = "-";
 
-    /** The line of a kept record. */
-    public static String format(Scored s) {
-        Checks.requireArgument(s.verdict() == org.winnow.pipeline.Verdict.KEEP, "not a survivor: %s", s.reason().code());
-        String ref = s.prediction().nearestReference();
-        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + s.prediction().h11() + '\t'
-                + fraction(s.prediction().confidence()) + '\t' + (s.prediction().h21() == null ? UNDETERMINED : s.prediction().h21())
-                + '\t' + fraction(s.novelty()) + '\t' + s.reason().code() + '\t' + (ref.isEmpty() ? UNDETERMINED : ref);
+    static String valueColumns() {
+        StringBuilder sb = new StringBuilder();
+        for (String v : new String[] {"h11", "h21", "h31", "h22"}) {
+            sb.append(sb.length() == 0 ? "" : "\t").append(v).append('\t').append(v).append("_basis\t").append(v)
+                    .append("_confidence");
+        }
+        return sb.toString();
     }
 
-    /** Parses a data line; {@link IllegalArgumentException} naming the problem otherwise. */
+    /** The line of a kept record. */
+    public static String format(Scored s) {
+        Checks.requireArgument(s.verdict() == Verdict.KEEP, "not a survivor: %s", s.reason().code());
+        String ref = s.prediction().nearestReference();
+        return s.candidate().config().toText() + '\t' + s.invariants().chi() + '\t' + values(s.prediction()) + '\t'
+                + fraction(s.novelty()) + '\t' + s.reason().code() + '\t' + (ref.isEmpty() ? UNDETERMINED : ref);
+    }
+
+    /** The twelve value columns of an estimate. */
+    static String values(Prediction e) {
+        return value(e.h11Value()) + '\t' + value(e.h21Value()) + '\t' + value(e.h31Value()) + '\t' + value(e.h22Value());
+    }
+
+    private static String value(PredictedValue v) {
+        if (v == null) {
+            return UNDETERMINED + '\t' + UNDETERMINED + '\t' + UNDETERMINED;
+        }
+        return v.value() + "\t" + v.describeBasis() + '\t' + fraction(v.confidence());
+    }
+
+    /** Parses a data line of format 2 or 1; {@link IllegalArgumentException} naming the problem otherwise. */
     public static SurvivorLine parse(String line) {
         String[] f = line.split("\t", -1);
-        Checks.requireArgument(f.length == 8, "a survivor line has 8 fields, found %d: %s", f.length, line);
-        Reason r = Reason.ofCode(f[6]);
-        Checks.requireArgument(r.verdict() == org.winnow.pipeline.Verdict.KEEP, "not a keep reason: %s", f[6]);
-        return new SurvivorLine(f[0], Long.parseLong(f[1]), Integer.parseInt(f[2]), Double.parseDouble(f[3]),
-                f[4].equals(UNDETERMINED) ? null : Integer.valueOf(f[4]), Double.parseDouble(f[5]), r,
-                f[7].equals(UNDETERMINED) ? "" : f[7]);
+        if (f.length == 8) {
+            Reason r = keepReason(f[6]);
+            double c = Double.parseDouble(f[3]);
+            return new SurvivorLine(f[0], Long.parseLong(f[1]), old(f[2], c), f[4].equals(UNDETERMINED) ? null : old(f[4], c),
+                    null, null, Double.parseDouble(f[5]), r, f[7].equals(UNDETERMINED) ? "" : f[7]);
+        }
+        Checks.requireArgument(f.length == 17, "a survivor line has 17 fields (8 in format 1), found %d: %s", f.length, line);
+        return new SurvivorLine(f[0], Long.parseLong(f[1]), parseValue(f, 2), parseValue(f, 5), parseValue(f, 8),
+                parseValue(f, 11), Double.parseDouble(f[14]), keepReason(f[15]), f[16].equals(UNDETERMINED) ? "" : f[16]);
+    }
+
+    private static Reason keepReason(String code) {
+        Reason r = Reason.ofCode(code);
+        Checks.requireArgument(r.verdict() == Verdict.KEEP, "not a keep reason: %s", code);
+        return r;
+    }
+
+    /** A format-1 value: nothing said how it was known, so it reads as estimated. */
+    static PredictedValue old(String value, double confidence) {
+        return new PredictedValue(Long.parseLong(value), Basis.ESTIMATED, 0, Long.MAX_VALUE, Math.min(confidence, Math.nextDown(1.0)));
+    }
+
+    /** The value at columns {@code at..at+2}, or null when undetermined. */
+    static PredictedValue parseValue(String[] f, int at) {
+        if (f[at].equals(UNDETERMINED)) {
+            return null;
+        }
+        return PredictedValue.parse(f[at], f[at + 1], f[at + 2]);
     }
 
     /** Six decimals: finer than any vote share or p-value of a practical reference set. */
     static String fraction(double x) {
         return String.format(Locale.ROOT, "%.6f", x);
+    }
+
+    /** The predicted h11. */
+    public int h11() {
+        return Math.toIntExact(h11Value.value());
+    }
+
+    /** The confidence of h11 (1 when proved). */
+    public double confidence() {
+        return h11Value.confidence();
+    }
+
+    /** The predicted h21, or null. */
+    public Integer h21() {
+        return h21Value == null ? null : Math.toIntExact(h21Value.value());
     }
 }

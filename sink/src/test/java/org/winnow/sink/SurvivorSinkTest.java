@@ -70,7 +70,7 @@ class SurvivorSinkTest {
         List<RejectLine> rejects = new ArrayList<>();
         for (String f : m.survivorFiles()) {
             List<String> lines = Files.readAllLines(dir.resolve(f));
-            assertTrue(lines.get(0).startsWith("# winnow survivors, format " + ScanFiles.FORMAT_VERSION + ", run test-run-1, part "), lines.get(0));
+            assertTrue(lines.get(0).startsWith("# winnow survivors, format 2, run test-run-1, part "), lines.get(0));
             assertEquals(SurvivorLine.COLUMNS, lines.get(1));
             lines.subList(2, lines.size()).forEach(l -> survivors.add(SurvivorLine.parse(l)));
         }

@@ -59,7 +59,7 @@ public final class ScoreCommand implements Callable<Integer> {
     @Option(names = "--rules-file", paramLabel = "F", description = "Rules file, as for scan.")
     Path rulesFile;
 
-    @Option(names = "--min-confidence", paramLabel = "X", description = "As for scan (default 0.9).")
+    @Option(names = "--min-confidence", paramLabel = "X", description = "As for scan (default 0.85).")
     Double minConfidence;
 
     @Option(names = "--novelty", paramLabel = "X", description = "As for scan (default 0.99).")

@@ -6,6 +6,7 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.winnow.sink.Manifest;
+import org.winnow.pipeline.PredictedValue;
 import org.winnow.sink.SurvivorLine;
 
 /**
@@ -55,6 +56,7 @@ final class ReportHtml {
         histogramSection(h, "novelty", "Novelty of the survivors", novelty, "novelty");
         clusters(h, view, m);
         histogramSection(h, "confidence", "Confidence of the h11 predictions", confidence, "h11 confidence");
+        bases(h, scan.survivors());
         survivors(h, scan.survivors(), top);
         h.append("<script>").append(SORTER).append("</script>\n</body></html>\n");
         return h.toString();
@@ -196,6 +198,29 @@ final class ReportHtml {
         h.append("</section>\n");
     }
 
+    /** How each predicted value of the survivors is known: proved, bounded or estimated, counted. */
+    static void bases(StringBuilder h, List<SurvivorLine> all) {
+        section(h, "bases", "How the survivors' values are known");
+        h.append("<p>Proved values are theorems (confidence 1); bounded ones lie in a proved interval; estimated ones"
+                + " rest on the model alone, and their confidence stays below 1.</p>\n");
+        h.append("<table><thead><tr><th>value</th><th>proved</th><th>bounded</th><th>estimated</th>"
+                + "<th>not determined</th></tr></thead><tbody>\n");
+        String[] names = {"h11", "h21", "h31", "h22"};
+        for (int i = 0; i < names.length; i++) {
+            long[] n = new long[4];
+            for (SurvivorLine x : all) {
+                PredictedValue v = new PredictedValue[] {x.h11Value(), x.h21Value(), x.h31Value(), x.h22Value()}[i];
+                n[v == null ? 3 : v.basis().ordinal()]++;
+            }
+            h.append("<tr><td>").append(names[i]).append("</td>");
+            for (long c : n) {
+                num(h, Long.toString(c));
+            }
+            h.append("</tr>\n");
+        }
+        h.append("</tbody></table>\n</section>\n");
+    }
+
     private static void survivors(StringBuilder h, List<SurvivorLine> all, int top) {
         section(h, "survivors", "Top survivors");
         List<SurvivorLine> shown = all.stream()
@@ -212,9 +237,12 @@ final class ReportHtml {
         for (SurvivorLine s : shown) {
             h.append("<tr><td><code>").append(esc(s.config())).append("</code></td>");
             num(h, Long.toString(s.chi()));
-            num(h, Integer.toString(s.h11()));
-            num(h, String.format(Locale.ROOT, "%.4f", s.confidence()));
-            num(h, s.h21() == null ? SurvivorLine.UNDETERMINED : s.h21().toString());
+            for (PredictedValue v : new PredictedValue[] {s.h11Value(), s.h21Value(), s.h31Value(), s.h22Value()}) {
+                // Each value with how it is known: proved, bounded LO..HI or estimated, and its confidence.
+                num(h, v == null ? SurvivorLine.UNDETERMINED : Long.toString(v.value()));
+                h.append("<td>").append(esc(v == null ? SurvivorLine.UNDETERMINED : v.describeBasis())).append("</td>");
+                num(h, v == null ? SurvivorLine.UNDETERMINED : String.format(Locale.ROOT, "%.4f", v.confidence()));
+            }
             num(h, String.format(Locale.ROOT, "%.4f", s.novelty()));
             h.append("<td>").append(esc(s.keptBecause().code())).append("</td><td><code>")
                     .append(esc(s.nearestReference().isEmpty() ? SurvivorLine.UNDETERMINED : s.nearestReference()))

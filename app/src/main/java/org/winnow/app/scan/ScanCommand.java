@@ -73,7 +73,7 @@ public final class ScanCommand implements Callable<Integer> {
     Path rulesFile;
 
     @Option(names = "--min-confidence", paramLabel = "X",
-            description = "A prediction rejects only with at least this vote share (default 0.9).")
+            description = "An unproved prediction rejects only with at least this confidence (default 0.85).")
     Double minConfidence;
 
     @Option(names = "--novelty", paramLabel = "X",

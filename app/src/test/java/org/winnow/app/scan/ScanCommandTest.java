@@ -108,9 +108,17 @@ class ScanCommandTest {
                 // The rejection really follows from a rule at the stated confidence and novelty.
                 switch (x.rejectedBecause()) {
                     case EXACT_CHI_OUT_OF_RANGE -> assertTrue(x.chi() < -150 || x.chi() > 0, line);
+                    case PROVED_H11_OUT_OF_RANGE -> {
+                        assertTrue(x.h11Value().isProved() && (x.h11() < 2 || x.h11() > 5), line);
+                        assertTrue(x.chi() >= -150 && x.chi() <= 0, line);
+                    }
+                    case BOUNDED_H11_OUT_OF_RANGE -> {
+                        assertTrue(!x.h11Value().isProved() && x.h11Value().provedOutside(2, 5), line);
+                        assertTrue(x.chi() >= -150 && x.chi() <= 0, line);
+                    }
                     case PREDICTED_H11_OUT_OF_RANGE -> {
                         assertTrue(x.h11() < 2 || x.h11() > 5, line);
-                        assertTrue(x.confidence() >= 0.5 - 5e-7 && x.novelty() < 0.9, line);
+                        assertTrue(!x.h11Value().isProved() && x.confidence() >= 0.5 - 5e-7 && x.novelty() < 0.9, line);
                         assertTrue(x.chi() >= -150 && x.chi() <= 0, line);
                     }
                     default -> throw new AssertionError("unexpected reason " + line);

@@ -1,7 +1,12 @@
 package org.winnow.scorer.model;
 
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.hodge.Basis;
+import org.winnow.geometry.hodge.KnownValue;
 import org.winnow.geometry.hodge.RefinedH11Estimator;
+import org.winnow.geometry.hodge.RefinedTupleEstimator;
+import org.winnow.geometry.hodge.TupleEstimate;
+import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Prediction;
 
 /**
@@ -26,6 +31,8 @@ public final class Predictor {
     private final int searchK;
     private final int[] neighbours;
     private final double[] distances;
+    private final RefinedTupleEstimator tuples = new RefinedTupleEstimator();
+    private TupleEstimate tuple;
     private final double[] classWeight;
     private int found;
     private int winner;
@@ -79,7 +86,12 @@ public final class Predictor {
             classWeight[model.residualOf(neighbours[i])] = 0;
         }
         winner = best;
-        confidence = bestWeight / total;
+        // The rule of succession on the neighbours that agree with the winner: never 1 from a vote alone.
+        int agree = 0;
+        for (int i = 0; i < k; i++) {
+            agree += model.residualOf(neighbours[i]) == best ? 1 : 0;
+        }
+        confidence = (agree + 1.0) / (k + 2.0);
         int nk = Math.min(cal.noveltyK(), found);
         novelty = cal.novelty(distances[nk - 1]);
         estimate = model.architecture().anchored() ? ws.h11Estimate : 0;
@@ -102,6 +114,12 @@ public final class Predictor {
      */
     public Prediction predict(Configuration config, long chi) {
         int h11 = score(config, chi);
+        int d = config.dimension();
+        tuple = null;
+        if (model.architecture().anchored() && (d == 3 || d == 4)) {
+            tuple = tuples.estimate(config, chi);
+            return withBases(tuple, h11, chi);
+        }
         Integer h21 = null;
         Integer h31 = null;
         Integer h22 = null;
@@ -122,6 +140,46 @@ public final class Predictor {
         // in floating point either); the clamp only guards the record's contract.
         return new Prediction(h11, Math.min(1.0, Math.max(0.0, confidence)), h21, h31, h22, novelty,
                 model.reference().configs()[neighbours[0]]);
+    }
+
+    /**
+     * The prediction with every value's basis from the candidate's tuple: a PROVED value is the prediction
+     * itself (confidence 1); a BOUNDED one the voted value clamped into its interval, with a confidence of
+     * at most one value's share of the interval (the vote does not see inside it); an ESTIMATED one the
+     * voted value. h31 has no vote of its own yet: its estimate comes from the tuple with confidence 0, so
+     * only a proof or a proved interval rejects on it, and so do h21 and h22 of a four-fold, derived from
+     * h11 and h31 through {@code chi = 48 + 6(h11 - h21 + h31)} and {@code h22 = 44 + 4 h11 - 2 h21 + 4 h31}.
+     */
+    private Prediction withBases(TupleEstimate t, int h11Voted, long chi) {
+        PredictedValue h11 = value(t.h11(), h11Voted, confidence);
+        PredictedValue h21;
+        PredictedValue h31 = null;
+        PredictedValue h22 = null;
+        if (t.dim() == 3) {
+            h21 = value(t.h21(), h11.value() - chi / 2, h11.confidence());
+        } else {
+            h31 = value(t.h31(), t.h31().value(), 0);
+            double both = Math.min(h11.confidence(), h31.confidence());
+            h21 = value(t.h21(), h11.value() + h31.value() + 8 - Math.floorDiv(chi, 6), both);
+            h22 = value(t.h22(), 28 + 2 * h11.value() + 2 * h31.value() + Math.floorDiv(chi, 3), both);
+        }
+        return new Prediction(h11, h21, h31, h22, t.product(), novelty, model.reference().configs()[neighbours[0]]);
+    }
+
+    private static PredictedValue value(KnownValue known, long guess, double voteConfidence) {
+        double c = Math.min(voteConfidence, UNPROVED_MAX);
+        if (known.basis() == Basis.BOUNDED) {
+            c = Math.min(c, 1.0 / (known.hi() - known.lo() + 1));
+        }
+        return PredictedValue.of(known, guess, c);
+    }
+
+    /** The largest confidence an unproved value can show (a unanimous vote of 30 neighbours). */
+    static final double UNPROVED_MAX = 31.0 / 32.0;
+
+    /** The tuple of the last predicted candidate, or null (another dimension than 3 and 4, or unanchored). */
+    public TupleEstimate tuple() {
+        return tuple;
     }
 
     /** The h11 each voting neighbour stands for, nearest first, for the last scored candidate. */

@@ -7,6 +7,7 @@ import java.util.Map;
 import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Keepable;
+import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Reason;
 
 /**
@@ -14,10 +15,12 @@ import org.winnow.pipeline.Reason;
  * and the novelty guard above which nothing is rejected on a prediction.
  *
  * <p>Decision order, so that every candidate gets exactly one reason: the exact ranges in the order
- * given (the first violated one rejects), then the residue rules on chi; then the predicted ranges in the order given: if none is
- * violated the candidate is kept in range (or undecided, when a predicted invariant is not determined),
- * otherwise the first violated one rejects unless the novelty reaches the guard (kept as novel) or the
- * confidence is below the threshold (kept with low confidence).
+ * given (the first violated one rejects), then the residue rules on chi. Then the predicted ranges, by
+ * how each value is known: a value proved outside its range rejects for certain (the first such rule),
+ * else one whose proved interval lies wholly outside (likewise); otherwise, if some unproved value lies
+ * outside its range, the candidate is kept as novel when the novelty reaches the guard, else rejected on
+ * the first such value whose own confidence reaches the threshold, else kept with low confidence. With
+ * no value outside, it is kept in range, or undecided when a named value is not determined.
  *
  * <p>Immutable and thread-safe.
  *
@@ -27,8 +30,11 @@ import org.winnow.pipeline.Reason;
  * @param noveltyGuard  a prediction rejects only with novelty below this, in (0, 1]
  */
 public record KeepRules(List<RangeRule> ranges, List<ResidueRule> residues, double minConfidence, double noveltyGuard) {
-    /** Default confidence threshold. */
-    public static final double DEFAULT_MIN_CONFIDENCE = 0.9;
+    /**
+     * Default confidence threshold. An unproved value's confidence is the rule of succession on the voting
+     * neighbours that agree, {@code (a + 1) / (k + 2)}: a unanimous vote of the 7 nearest gives 8/9 = 0.889.
+     */
+    public static final double DEFAULT_MIN_CONFIDENCE = 0.85;
     /** Default novelty guard. */
     public static final double DEFAULT_NOVELTY_GUARD = 0.99;
 
@@ -96,29 +102,42 @@ public record KeepRules(List<RangeRule> ranges, List<ResidueRule> residues, doub
             }
         }
         boolean undecided = false;
-        RangeRule violated = null;
+        RangeRule bounded = null;
+        List<RangeRule> outside = null;
         for (RangeRule r : ranges) {
             if (r.invariant().exact()) {
                 continue;
             }
-            Integer value = predictedValue(r.invariant(), prediction);
-            if (value == null || exact.blocks() > 1 && r.invariant() != Keepable.H11) {
+            PredictedValue v = prediction.value(r.invariant());
+            if (v == null || (prediction.product() || exact.blocks() > 1) && r.invariant() != Keepable.H11) {
                 undecided = true;
-            } else if (!r.contains(value)) {
-                violated = r;
-                break;
+            } else if (v.provedOutside(r.lo(), r.hi())) {
+                if (v.isProved()) {
+                    return Reason.provedOutside(r.invariant());
+                }
+                bounded = bounded == null ? r : bounded;
+            } else if (!r.contains(v.value())) {
+                if (outside == null) {
+                    outside = new ArrayList<>(2);
+                }
+                outside.add(r);
             }
         }
-        if (violated == null) {
+        if (bounded != null) {
+            return Reason.boundedOutside(bounded.invariant());
+        }
+        if (outside == null) {
             return undecided ? Reason.KEPT_UNDECIDED : Reason.KEPT_IN_RANGE;
         }
         if (prediction.novelty() >= noveltyGuard) {
             return Reason.KEPT_AS_NOVEL;
         }
-        if (prediction.confidence() < minConfidence) {
-            return Reason.KEPT_LOW_CONFIDENCE;
+        for (RangeRule r : outside) {
+            if (prediction.value(r.invariant()).confidence() >= minConfidence) {
+                return r.invariant().rejection();
+            }
         }
-        return violated.invariant().rejection();
+        return Reason.KEPT_LOW_CONFIDENCE;
     }
 
     /** The rules as text lines, in the rules-file form, for manifests and logs. */

@@ -3,6 +3,9 @@ package org.winnow.scorer.stage;
 import java.io.IOException;
 import java.nio.file.Path;
 import java.util.Objects;
+import org.winnow.geometry.hodge.KnownValue;
+import org.winnow.geometry.hodge.TupleEstimate;
+import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Prediction;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.model.Predictor;
@@ -52,8 +55,19 @@ public final class ModelScoring implements ScoringFunctions {
             if (exact.dim() == modelDim) {
                 return p;
             }
-            return new Prediction(p.h11(), p.confidence(), null, null, null, 1.0, p.nearestReference());
+            // The model's vote says nothing about another dimension; the candidate's own proofs still hold.
+            TupleEstimate t = predictor.tuple();
+            if (t == null) {
+                return new Prediction(p.h11(), 0, null, null, null, 1.0, p.nearestReference());
+            }
+            return new Prediction(unvoted(t.h11()), unvoted(t.h21()), unvoted(t.h31()), unvoted(t.h22()), t.product(), 1.0,
+                    p.nearestReference());
         };
+    }
+
+    /** A value of the candidate's own tuple without the model's vote: proved stays proved, the rest confidence 0. */
+    private static PredictedValue unvoted(KnownValue v) {
+        return v == null ? null : PredictedValue.of(v, v.value(), 0.0);
     }
 
     @Override
