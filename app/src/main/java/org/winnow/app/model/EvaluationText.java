@@ -7,7 +7,7 @@ import org.winnow.scorer.model.Evaluation;
 /** Renders an {@link Evaluation} for people: tables first, then a {@code name: value} summary. */
 final class EvaluationText {
     /** Rule thresholds reported as "decisive": what a keep/reject rule could act on. */
-    static final double DECISIVE_CONFIDENCE = 0.9;
+    static final double DECISIVE_CONFIDENCE = org.winnow.scorer.rules.KeepRules.DEFAULT_MIN_CONFIDENCE;
     static final double DECISIVE_NOVELTY = 0.99;
 
     private EvaluationText() {}
@@ -52,8 +52,22 @@ final class EvaluationText {
         line(sb, "h11 accuracy", num(e.accuracy()));
         line(sb, "min class recall (n>=5)", num(e.minRecall(5)));
         double[] d = e.decisive(DECISIVE_CONFIDENCE, DECISIVE_NOVELTY);
-        line(sb, "decisive share (confidence>=0.9, novelty<0.99)", num(d[0]));
+        line(sb, String.format(Locale.ROOT, "decisive share (confidence>=%s, novelty<%s)", DECISIVE_CONFIDENCE,
+                DECISIVE_NOVELTY), num(d[0]));
         line(sb, "decisive accuracy", num(d[1]));
+        Evaluation.Tuple t = e.tuple();
+        if (t != null) {
+            line(sb, "tuple examples", Integer.toString(t.examples()));
+            line(sb, "tuple accuracy", num(t.tupleAccuracy()));
+            for (int v = 0; v < t.accuracy().length; v++) {
+                String name = Evaluation.VALUES.get(v);
+                line(sb, name + " right / proved / bounded", num(t.accuracy()[v]) + " / " + num(t.proved()[v]) + " / "
+                        + num(t.bounded()[v]));
+            }
+            line(sb, "wrong values marked proved", Integer.toString(t.wrongProved()));
+            line(sb, "labels outside their proved bounds", Integer.toString(t.outsideBounds()));
+            line(sb, "unproved values shown near-certain", Integer.toString(t.confidentUnproved()));
+        }
         if (e.holdoutClass() != null) {
             line(sb, "held-out class", "h11=" + e.holdoutClass());
             line(sb, "held-out examples", Integer.toString(e.holdoutExamples()));

@@ -27,10 +27,32 @@ import org.winnow.geometry.Checks;
  * @param predicted predicted h11, same order
  * @param confidence stated confidence, same order
  * @param novelty novelty, same order
+ * @param tuple the whole Hodge tuple against the labels, on the known-class examples; null when the labels
+ *     hold h11 only
  */
 public record Evaluation(int examples, double accuracy, int[] classes, int[] support, double[] recall,
         double[] precision, int[][] confusion, List<Bin> reliability, Integer holdoutClass, int holdoutExamples,
-        double noveltyAuroc, int[] truth, int[] predicted, double[] confidence, double[] novelty) {
+        double noveltyAuroc, int[] truth, int[] predicted, double[] confidence, double[] novelty, Tuple tuple) {
+
+    /** The names of the tuple's values, in label order. */
+    public static final List<String> VALUES = List.of("h11", "h21", "h31", "h22");
+
+    /**
+     * The whole tuple against the labels: {@code (h11, h21)} for three-folds, {@code (h11, h21, h31, h22)}
+     * for four-folds; per value in {@link #VALUES} order, as many as the labels hold.
+     *
+     * @param examples      known-class examples with a full label
+     * @param tupleAccuracy share with every value right
+     * @param accuracy      share right, per value
+     * @param proved        share of predictions marked proved, per value
+     * @param bounded       share marked bounded, per value
+     * @param wrongProved   values marked proved that differ from the label (a defect whenever it is not 0)
+     * @param outsideBounds bounded values whose proved interval misses the label (likewise)
+     * @param confidentUnproved unproved values shown with confidence above {@link Predictor#UNPROVED_MAX}
+     *                      (likewise)
+     */
+    public record Tuple(int examples, double tupleAccuracy, double[] accuracy, double[] proved, double[] bounded,
+            int wrongProved, int outsideBounds, int confidentUnproved) {}
 
     /** Upper edges of the reliability bins (the last bin is closed at 1). */
     public static final double[] BIN_EDGES = {0.5, 0.6, 0.7, 0.8, 0.9, 0.95, 0.99, 1.0};
@@ -58,12 +80,66 @@ public record Evaluation(int examples, double accuracy, int[] classes, int[] sup
         double[] conf = new double[n];
         double[] nov = new double[n];
         Predictor p = model.newPredictor();
+        int values = 4;
+        for (LabelledExample e : known) {
+            values = Math.min(values, e.hodge().length);
+        }
+        int full = 0;
+        int allRight = 0;
+        int[] right = new int[values];
+        int[] proved = new int[values];
+        int[] bounded = new int[values];
+        int wrongProved = 0;
+        int outsideBounds = 0;
+        int confidentUnproved = 0;
         for (int i = 0; i < n; i++) {
             LabelledExample e = i < known.size() ? known.get(i) : novel.get(i - known.size());
             truth[i] = e.h11();
-            pred[i] = p.score(e.config(), e.chi());
+            org.winnow.pipeline.Prediction predicted = p.predict(e.config(), e.chi());
+            pred[i] = predicted.h11();
             conf[i] = p.confidence();
             nov[i] = p.novelty();
+            if (i >= known.size() || values < 2) {
+                continue;
+            }
+            int[] label = e.hodge();
+            full++;
+            boolean all = true;
+            for (int v = 0; v < values; v++) {
+                org.winnow.pipeline.PredictedValue pv = predicted.value(org.winnow.pipeline.Keepable.ofLabel(VALUES.get(v))
+                        .orElseThrow());
+                boolean ok = pv != null && pv.value() == label[v];
+                all &= ok;
+                right[v] += ok ? 1 : 0;
+                if (pv == null) {
+                    continue;
+                }
+                switch (pv.basis()) {
+                    case PROVED -> {
+                        proved[v]++;
+                        wrongProved += ok ? 0 : 1;
+                    }
+                    case BOUNDED -> {
+                        bounded[v]++;
+                        outsideBounds += pv.lo() <= label[v] && label[v] <= pv.hi() ? 0 : 1;
+                    }
+                    case ESTIMATED -> { }
+                }
+                confidentUnproved += !pv.isProved() && pv.confidence() > Predictor.UNPROVED_MAX ? 1 : 0;
+            }
+            allRight += all ? 1 : 0;
+        }
+        Tuple tuple = null;
+        if (values >= 2 && full > 0) {
+            double[] acc = new double[values];
+            double[] pr = new double[values];
+            double[] bd = new double[values];
+            for (int v = 0; v < values; v++) {
+                acc[v] = right[v] / (double) full;
+                pr[v] = proved[v] / (double) full;
+                bd[v] = bounded[v] / (double) full;
+            }
+            tuple = new Tuple(full, allRight / (double) full, acc, pr, bd, wrongProved, outsideBounds, confidentUnproved);
         }
         int kn = known.size();
         TreeSet<Integer> seen = new TreeSet<>();
@@ -115,7 +191,7 @@ public record Evaluation(int examples, double accuracy, int[] classes, int[] sup
             auroc = auroc(Arrays.copyOfRange(nov, kn, n), Arrays.copyOfRange(nov, 0, kn));
         }
         return new Evaluation(kn, kn == 0 ? Double.NaN : correct / (double) kn, classes, support, recall, precision,
-                confusion, List.copyOf(bins), holdoutClass, novel.size(), auroc, truth, pred, conf, nov);
+                confusion, List.copyOf(bins), holdoutClass, novel.size(), auroc, truth, pred, conf, nov, tuple);
     }
 
     /** The smallest recall over classes with at least {@code minSupport} true members (NaN if none). */

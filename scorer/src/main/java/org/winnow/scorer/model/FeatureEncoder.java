@@ -1,7 +1,6 @@
 package org.winnow.scorer.model;
 
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Turns a configuration (and its exact chi) into the network's input graph: normalised row, column and
@@ -26,7 +25,7 @@ final class FeatureEncoder {
             colFeatures(c, j, ws.xc, off);
             normalise(ws.xc, off, norm.colMean(), norm.colScale());
         }
-        ws.h11Estimate = globalFeatures(c, chi, ws.estimator, ws.g, 0);
+        ws.h11Estimate = globalFeatures(c, chi, ws.anchor, ws.g, 0);
         normalise(ws.g, 0, norm.globalMean(), norm.globalScale());
         if (ws.arch.rounds() == 0) {
             return; // only message passing reads the edges
@@ -103,8 +102,8 @@ final class FeatureEncoder {
         out[off + 3] = weighted;
     }
 
-    /** Writes the raw global features and returns the first-page h11 estimate. */
-    static int globalFeatures(Configuration c, long chi, RefinedH11Estimator estimator, double[] out, int off) {
+    /** Writes the raw global features and returns the anchor h11 ({@link Anchor}). */
+    static int globalFeatures(Configuration c, long chi, Anchor anchor, double[] out, int off) {
         int nnz = 0;
         int big = 0;
         int sumN = 0;
@@ -126,11 +125,7 @@ final class FeatureEncoder {
         out[off + 5] = sumN;
         out[off + 6] = ones;
         out[off + 7] = sumN - c.cols();
-        int estimate = estimator.estimate(c);
-        out[off + 8] = estimate;
-        out[off + 9] = estimate - c.rows();
-        out[off + 10] = estimator.eulerOne();
-        out[off + 11] = Math.max(0, estimator.conormalTwo() - estimator.eulerTwo());
-        return estimate;
+        anchor.compute(c, chi, out, off);
+        return anchor.h11();
     }
 }

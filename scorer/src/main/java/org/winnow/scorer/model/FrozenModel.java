@@ -5,7 +5,6 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * A trained, immutable similarity model: architecture, weights, input normalisation, the reference
@@ -28,6 +27,8 @@ public final class FrozenModel {
     private final int[] classOf;
     private final int[] residuals;
     private final int[] residualOf;
+    private final int[] residuals31;
+    private final int[] residual31Of;
     private final int dimension;
     private final String checksum;
 
@@ -60,21 +61,35 @@ public final class FrozenModel {
                     reference.h11(i));
             classOf[i] = c;
         }
-        // What each reference point votes for: its exact h11 minus its first-page estimate (anchored), or
-        // its h11 itself.
-        RefinedH11Estimator estimator = new RefinedH11Estimator();
+        // What each reference point votes for: its exact h11 minus its anchor h11 (anchored), or its h11
+        // itself; on an anchored four-fold model with full labels also its exact h31 minus its tuple's h31.
+        this.dimension = Configuration.parse(reference.configs()[0]).dimension();
+        Anchor anchor = new Anchor();
+        double[] scratch = new double[Architecture.GLOBAL_FEATURES];
+        boolean four = architecture.anchored() && dimension == 4 && fullLabels(reference);
         int[] residual = new int[reference.size()];
+        int[] residual31 = new int[four ? reference.size() : 0];
         for (int i = 0; i < reference.size(); i++) {
-            int estimate = architecture.anchored()
-                    ? estimator.estimate(Configuration.parse(reference.configs()[i])) : 0;
-            residual[i] = reference.h11(i) - estimate;
+            if (!architecture.anchored()) {
+                residual[i] = reference.h11(i);
+                continue;
+            }
+            anchor.compute(Configuration.parse(reference.configs()[i]), reference.chi()[i], scratch, 0);
+            residual[i] = reference.h11(i) - anchor.h11();
+            if (four) {
+                residual31[i] = Math.toIntExact(reference.hodge()[i][2] - anchor.tuple().h31().value());
+            }
         }
         this.residuals = Arrays.stream(residual).distinct().sorted().toArray();
         this.residualOf = new int[reference.size()];
         for (int i = 0; i < reference.size(); i++) {
             residualOf[i] = Arrays.binarySearch(residuals, residual[i]);
         }
-        this.dimension = Configuration.parse(reference.configs()[0]).dimension();
+        this.residuals31 = Arrays.stream(residual31).distinct().sorted().toArray();
+        this.residual31Of = new int[residual31.length];
+        for (int i = 0; i < residual31.length; i++) {
+            residual31Of[i] = Arrays.binarySearch(residuals31, residual31[i]);
+        }
         this.checksum = ModelFile.hex(ModelFile.sha256(ModelFile.payloadBytes(payload())));
     }
 
@@ -296,6 +311,31 @@ public final class FrozenModel {
 
     int residualCount() {
         return residuals.length;
+    }
+
+    /** True iff every reference label holds the four-fold tuple (h11, h21, h31, h22). */
+    private static boolean fullLabels(ReferenceSet reference) {
+        for (int[] h : reference.hodge()) {
+            if (h.length < 4) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    /** Index into {@link #residual31} of the h31 correction of reference point {@code referenceIndex}. */
+    int residual31Of(int referenceIndex) {
+        return residual31Of[referenceIndex];
+    }
+
+    /** The distinct h31 corrections ({@code h31} minus the tuple's h31) of a four-fold reference, ascending. */
+    int residual31(int index) {
+        return residuals31[index];
+    }
+
+    /** How many distinct h31 corrections there are; 0 unless the model is an anchored four-fold one with full labels. */
+    int residual31Count() {
+        return residuals31.length;
     }
 
     private ModelFile.Payload payload() {

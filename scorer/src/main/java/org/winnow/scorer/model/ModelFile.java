@@ -25,7 +25,13 @@ import java.util.HexFormat;
  */
 final class ModelFile {
     static final byte[] MAGIC = "WNMODEL\u0000".getBytes(StandardCharsets.US_ASCII);
-    static final int VERSION = 3;
+    /**
+     * 4 since the anchor is the Hodge tuple with the basis of every value ({@link Anchor}): a version-3
+     * file's reference embeddings and corrections were made with the h11-only anchor, so such a file is
+     * refused with the command that retrains it, rather than read with votes that no longer mean what
+     * they meant.
+     */
+    static final int VERSION = 4;
     static final int HEADER = MAGIC.length + 4 + 8 + 32;
 
     private ModelFile() {}
@@ -142,6 +148,10 @@ final class ModelFile {
         ByteBuffer buf = ByteBuffer.wrap(all);
         buf.position(MAGIC.length);
         int version = buf.getInt();
+        if (version == 3) {
+            throw new ModelFileException(path + ": model format version 3 predates the tuple anchor (this build reads "
+                    + "version " + VERSION + "); retrain it with 'winnow train --reference LABELLED.tsv --out MODEL.wnm'");
+        }
         if (version != VERSION) {
             throw new ModelFileException(path + ": unsupported model format version " + version
                     + " (this build reads version " + VERSION + ")");

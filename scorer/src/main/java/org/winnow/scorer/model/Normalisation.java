@@ -3,7 +3,6 @@ package org.winnow.scorer.model;
 import java.util.List;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Affine input normalisation, {@code (x - mean) * scale}, fitted on the training examples so every raw
@@ -41,7 +40,7 @@ public record Normalisation(double[] rowMean, double[] rowScale, double[] colMea
         Moments cols = new Moments(Architecture.COL_FEATURES);
         Moments globals = new Moments(Architecture.GLOBAL_FEATURES);
         double[] buf = new double[Math.max(Architecture.GLOBAL_FEATURES, Architecture.ROW_FEATURES)];
-        RefinedH11Estimator estimator = new RefinedH11Estimator();
+        Anchor anchor = new Anchor();
         for (int i = 0; i < configs.size(); i++) {
             Configuration c = configs.get(i);
             for (int r = 0; r < c.rows(); r++) {
@@ -52,7 +51,7 @@ public record Normalisation(double[] rowMean, double[] rowScale, double[] colMea
                 FeatureEncoder.colFeatures(c, j, buf, 0);
                 cols.add(buf);
             }
-            FeatureEncoder.globalFeatures(c, chis[i], estimator, buf, 0);
+            FeatureEncoder.globalFeatures(c, chis[i], anchor, buf, 0);
             globals.add(buf);
         }
         return new Normalisation(rows.mean(), rows.scale(), cols.mean(), cols.scale(), globals.mean(), globals.scale());

@@ -4,7 +4,6 @@ import org.winnow.geometry.Configuration;
 import org.winnow.geometry.hodge.Basis;
 import org.winnow.geometry.hodge.KnownValue;
 import org.winnow.geometry.hodge.RefinedH11Estimator;
-import org.winnow.geometry.hodge.RefinedTupleEstimator;
 import org.winnow.geometry.hodge.TupleEstimate;
 import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Prediction;
@@ -12,16 +11,27 @@ import org.winnow.pipeline.Prediction;
 /**
  * Scores candidates against one {@link FrozenModel}: embed, find the nearest reference points, vote,
  * measure novelty. NOT thread-safe: it owns reusable buffers, so each worker thread takes its own
- * from {@link FrozenModel#newPredictor()}. {@link #score} allocates nothing; {@link #predict} adds only
- * the returned record.
+ * from {@link FrozenModel#newPredictor()}. {@link #score} allocates only the anchor's small tuple
+ * records; {@link #predict} adds the returned records.
  *
- * <p>The vote weighs each of the k nearest reference points as {@link Calibration} describes. What a
- * neighbour votes for is a correction: its exact h11 minus its own first-page estimate
- * ({@code RefinedH11Estimator}); the prediction is the candidate's estimate plus the winning correction, and the
- * confidence is that correction's share of the total weight. So neighbours teach where the estimate
- * fails, and a candidate of an h11 that no reference point has is still predicted from its own
- * estimate (and flagged by its novelty, since the embedding's anchor coordinate keeps it away from the
- * reference). Ties between corrections go to the one nearer zero, then the smaller.
+ * <p>The anchor is the candidate's Hodge tuple ({@link Anchor}): each value with its basis. The vote
+ * weighs each of the k nearest reference points as {@link Calibration} describes. What a neighbour votes
+ * for is a correction: its exact h11 minus its own anchor h11 (and, on a four-fold model with full labels,
+ * its exact h31 minus its own tuple's h31); the prediction is the candidate's value plus the winning
+ * correction. So neighbours teach where the estimate fails, and a candidate of an h11 that no reference
+ * point has is still predicted from its own estimate (and flagged by its novelty, since the embedding's
+ * anchor coordinate keeps it away from the reference). Ties between corrections go to the one nearer
+ * zero, then the smaller.
+ *
+ * <p>How each value is known: a PROVED value is the prediction itself, with confidence 1; a BOUNDED one is
+ * the voted value clamped into its proved interval, with a confidence of at most one value's share of the
+ * interval (the vote was never taught inside it); an ESTIMATED one is the voted value. An unproved value's
+ * confidence is the rule of succession on the neighbours that agree with the winning correction,
+ * {@code (a + 1) / (k + 2)}: a unanimous vote of the 7 nearest gives 8/9, so no unproved value shows
+ * near-certainty on its own. A four-fold's h21 and h22 follow from h11 and h31 through
+ * {@code chi = 48 + 6(h11 - h21 + h31)} and {@code h22 = 44 + 4 h11 - 2 h21 + 4 h31} with the exact chi
+ * (confidence the smaller of the two); a three-fold's h21 is {@code h11 - chi/2}. An unanchored model
+ * (labels that need not be h11) votes on h11 itself and marks everything estimated.
  */
 public final class Predictor {
     private static final double DISTANCE_FLOOR = 1e-12;
@@ -31,13 +41,14 @@ public final class Predictor {
     private final int searchK;
     private final int[] neighbours;
     private final double[] distances;
-    private final RefinedTupleEstimator tuples = new RefinedTupleEstimator();
-    private TupleEstimate tuple;
     private final double[] classWeight;
+    private final double[] classWeight31;
     private int found;
     private int winner;
+    private int winner31;
     private int estimate;
     private double confidence;
+    private double confidence31;
     private double novelty;
 
     Predictor(FrozenModel model) {
@@ -48,11 +59,13 @@ public final class Predictor {
         this.neighbours = new int[searchK];
         this.distances = new double[searchK];
         this.classWeight = new double[model.residualCount()];
+        this.classWeight31 = new double[Math.max(1, model.residual31Count())];
     }
 
     /**
-     * Scores one candidate and returns the predicted h11; {@link #confidence()}, {@link #novelty()} and
-     * the neighbour accessors then describe this candidate until the next call. Allocation-free.
+     * Scores one candidate and returns the predicted h11 (clamped into its proved interval when it has
+     * one); {@link #confidence()}, {@link #novelty()} and the neighbour accessors then describe this
+     * candidate until the next call.
      *
      * @param chi the candidate's exact Euler characteristic
      */
@@ -62,7 +75,7 @@ public final class Predictor {
         found = model.index().search(ws.e, searchK, -1, neighbours, distances);
         Calibration cal = model.calibration();
         int k = Math.min(cal.k(), found);
-        double total = 0;
+        boolean four = model.residual31Count() > 0;
         double bw = cal.bandwidth();
         double inv2 = bw > 0 ? 0.5 / (bw * bw) : 0;
         double d0 = distances[0] * distances[0];
@@ -70,10 +83,14 @@ public final class Predictor {
             double w = bw > 0 ? Math.exp(-(distances[i] * distances[i] - d0) * inv2)
                     : 1.0 / (distances[i] + DISTANCE_FLOOR);
             classWeight[model.residualOf(neighbours[i])] += w;
-            total += w;
+            if (four) {
+                classWeight31[model.residual31Of(neighbours[i])] += w;
+            }
         }
         int best = -1;
         double bestWeight = -1;
+        int best31 = -1;
+        double bestWeight31 = -1;
         for (int i = 0; i < k; i++) {
             int c = model.residualOf(neighbours[i]);
             double w = classWeight[c];
@@ -81,25 +98,44 @@ public final class Predictor {
                 bestWeight = w;
                 best = c;
             }
+            if (four) {
+                int c31 = model.residual31Of(neighbours[i]);
+                double w31 = classWeight31[c31];
+                if (w31 > bestWeight31 || (w31 == bestWeight31 && prefer31(c31, best31))) {
+                    bestWeight31 = w31;
+                    best31 = c31;
+                }
+            }
         }
-        for (int i = 0; i < k; i++) {
-            classWeight[model.residualOf(neighbours[i])] = 0;
-        }
-        winner = best;
         // The rule of succession on the neighbours that agree with the winner: never 1 from a vote alone.
         int agree = 0;
+        int agree31 = 0;
         for (int i = 0; i < k; i++) {
             agree += model.residualOf(neighbours[i]) == best ? 1 : 0;
+            classWeight[model.residualOf(neighbours[i])] = 0;
+            if (four) {
+                agree31 += model.residual31Of(neighbours[i]) == best31 ? 1 : 0;
+                classWeight31[model.residual31Of(neighbours[i])] = 0;
+            }
         }
+        winner = best;
+        winner31 = best31;
         confidence = (agree + 1.0) / (k + 2.0);
+        confidence31 = four ? (agree31 + 1.0) / (k + 2.0) : 0;
         int nk = Math.min(cal.noveltyK(), found);
         novelty = cal.novelty(distances[nk - 1]);
-        estimate = model.architecture().anchored() ? ws.h11Estimate : 0;
-        if (model.architecture().anchored() && ws.estimator.source() == RefinedH11Estimator.Source.ENGINE_EXACT) {
-            confidence = 1.0; // proved by the Hodge engine: nothing for the neighbours to correct
+        boolean anchored = model.architecture().anchored();
+        estimate = anchored ? ws.h11Estimate : 0;
+        if (anchored && ws.anchor.h11Proved()) {
+            confidence = 1.0; // proved: nothing for the neighbours to correct
             return estimate;
         }
-        return estimate + model.residual(winner);
+        int voted = estimate + model.residual(winner);
+        TupleEstimate t = anchored ? ws.anchor.tuple() : null;
+        if (t != null && t.h11().basis() == Basis.BOUNDED) {
+            return Math.toIntExact(Math.max(t.h11().lo(), Math.min(t.h11().hi(), voted)));
+        }
+        return voted;
     }
 
     private boolean prefer(int c, int over) {
@@ -108,62 +144,48 @@ public final class Predictor {
         return a < b || (a == b && model.residual(c) < model.residual(over));
     }
 
-    /**
-     * Scores one candidate (see {@link #score}) and packs the result, with the derived Hodge numbers; the
-     * neighbour accessors then describe this candidate until the next call.
-     */
-    public Prediction predict(Configuration config, long chi) {
-        int h11 = score(config, chi);
-        int d = config.dimension();
-        tuple = null;
-        if (model.architecture().anchored() && (d == 3 || d == 4)) {
-            tuple = tuples.estimate(config, chi);
-            return withBases(tuple, h11, chi);
-        }
-        Integer h21 = null;
-        Integer h31 = null;
-        Integer h22 = null;
-        int dim = model.dimension();
-        if (dim == 3) {
-            if (chi % 2 == 0 && h11 - chi / 2 >= 0) {
-                h21 = (int) (h11 - chi / 2);
-            }
-        } else if (dim == 4) {
-            int[] tuple = consistentFourFoldTuple(h11, chi);
-            if (tuple != null) {
-                h21 = tuple[1];
-                h31 = tuple[2];
-                h22 = 44 + 4 * h11 - 2 * tuple[1] + 4 * tuple[2];
-            }
-        }
-        // The vote share cannot leave [0, 1] (a partial sum of non-negative weights never exceeds the whole
-        // in floating point either); the clamp only guards the record's contract.
-        return new Prediction(h11, Math.min(1.0, Math.max(0.0, confidence)), h21, h31, h22, novelty,
-                model.reference().configs()[neighbours[0]]);
+    private boolean prefer31(int c, int over) {
+        int a = Math.abs(model.residual31(c));
+        int b = Math.abs(model.residual31(over));
+        return a < b || (a == b && model.residual31(c) < model.residual31(over));
     }
 
     /**
-     * The prediction with every value's basis from the candidate's tuple: a PROVED value is the prediction
-     * itself (confidence 1); a BOUNDED one the voted value clamped into its interval, with a confidence of
-     * at most one value's share of the interval (the vote does not see inside it); an ESTIMATED one the
-     * voted value. h31 has no vote of its own yet: its estimate comes from the tuple with confidence 0, so
-     * only a proof or a proved interval rejects on it, and so do h21 and h22 of a four-fold, derived from
-     * h11 and h31 through {@code chi = 48 + 6(h11 - h21 + h31)} and {@code h22 = 44 + 4 h11 - 2 h21 + 4 h31}.
+     * Scores one candidate (see {@link #score}) and packs the result, every value with its basis; the
+     * neighbour accessors then describe this candidate until the next call.
      */
-    private Prediction withBases(TupleEstimate t, int h11Voted, long chi) {
-        PredictedValue h11 = value(t.h11(), h11Voted, confidence);
-        PredictedValue h21;
-        PredictedValue h31 = null;
-        PredictedValue h22 = null;
-        if (t.dim() == 3) {
-            h21 = value(t.h21(), h11.value() - chi / 2, h11.confidence());
-        } else {
-            h31 = value(t.h31(), t.h31().value(), 0);
-            double both = Math.min(h11.confidence(), h31.confidence());
-            h21 = value(t.h21(), h11.value() + h31.value() + 8 - Math.floorDiv(chi, 6), both);
-            h22 = value(t.h22(), 28 + 2 * h11.value() + 2 * h31.value() + Math.floorDiv(chi, 3), both);
+    public Prediction predict(Configuration config, long chi) {
+        int h11Voted = score(config, chi);
+        String nearest = model.reference().configs()[neighbours[0]];
+        TupleEstimate t = model.architecture().anchored() ? ws.anchor.tuple() : null;
+        if (t == null) {
+            // No tuple (another dimension, or an unanchored model): nothing proved, every value estimated.
+            Integer h21 = model.dimension() == 3 && config.dimension() == 3 && chi % 2 == 0 && h11Voted - chi / 2 >= 0
+                    ? Math.toIntExact(h11Voted - chi / 2) : null;
+            return new Prediction(h11Voted, Math.min(confidence, UNPROVED_MAX), h21, null, null, novelty, nearest);
         }
-        return new Prediction(h11, h21, h31, h22, t.product(), novelty, model.reference().configs()[neighbours[0]]);
+        PredictedValue h11 = value(t.h11(), h11Voted, confidence);
+        if (t.dim() == 3) {
+            PredictedValue h21 = value(t.h21(), h11.value() - chi / 2, h11.confidence());
+            return new Prediction(h11, h21, null, null, t.product(), novelty, nearest);
+        }
+        long shift = Math.floorDiv(chi, 6) - 8; // h11 - h21 + h31
+        long h31Guess;
+        double c31;
+        if (t.h31().isProved() || !t.h21().isProved()) {
+            boolean voted = model.residual31Count() > 0;
+            h31Guess = t.h31().value() + (voted ? model.residual31(winner31) : 0);
+            // Without h31 labels the tuple's own h31 stands, and only a proof or a proved interval rejects on it.
+            c31 = voted ? confidence31 : 0;
+        } else {
+            h31Guess = t.h21().value() - h11.value() + shift; // a proved h21 ties h31 to h11
+            c31 = h11.confidence();
+        }
+        PredictedValue h31 = value(t.h31(), h31Guess, c31);
+        double both = Math.min(h11.confidence(), h31.confidence());
+        PredictedValue h21 = value(t.h21(), h11.value() + h31.value() - shift, both);
+        PredictedValue h22 = value(t.h22(), 44 + 4 * h11.value() - 2 * h21.value() + 4 * h31.value(), both);
+        return new Prediction(h11, h21, h31, h22, t.product(), novelty, nearest);
     }
 
     private static PredictedValue value(KnownValue known, long guess, double voteConfidence) {
@@ -177,9 +199,9 @@ public final class Predictor {
     /** The largest confidence an unproved value can show (a unanimous vote of 30 neighbours). */
     static final double UNPROVED_MAX = 31.0 / 32.0;
 
-    /** The tuple of the last predicted candidate, or null (another dimension than 3 and 4, or unanchored). */
+    /** The anchor tuple of the last scored candidate, or null (another dimension than 3 and 4). */
     public TupleEstimate tuple() {
-        return tuple;
+        return ws.anchor.tuple();
     }
 
     /** The h11 each voting neighbour stands for, nearest first, for the last scored candidate. */
@@ -192,41 +214,20 @@ public final class Predictor {
         return votes;
     }
 
-    /**
-     * The four-fold tuple {@code (h11, h21, h31)} satisfying {@code chi = 48 + 6(h11 - h21 + h31)}: h21
-     * from the nearest voting neighbour of the winning correction that has one, h31 from the identity;
-     * null when chi - 48 is not a multiple of 6, no such neighbour exists, or h31 would be negative.
-     */
-    private int[] consistentFourFoldTuple(int h11, long chi) {
-        if ((chi - 48) % 6 != 0) {
-            return null;
-        }
-        int k = Math.min(model.calibration().k(), found);
-        for (int i = 0; i < k; i++) {
-            int[] label = model.reference().hodge()[neighbours[i]];
-            if (model.residualOf(neighbours[i]) != winner || label.length < 3) {
-                continue;
-            }
-            long h31 = (chi - 48) / 6 - h11 + label[1];
-            return h31 >= 0 ? new int[] {h11, label[1], Math.toIntExact(h31)} : null;
-        }
-        return null;
-    }
-
-    /** How the last candidate's anchor was found (first page, or the Hodge engine where it was unsettled). */
+    /** How the last candidate's anchor h11 was found, in the terms of the h11-only anchor ({@link Anchor#source()}). */
     public RefinedH11Estimator.Source estimateSource() {
-        return ws.estimator.source();
+        return ws.anchor.source();
     }
 
     /**
-     * The first-page h11 estimate of the last scored candidate (the prediction before correction); 0
-     * for an unanchored model, which votes on h11 directly.
+     * The anchor h11 of the last scored candidate (the prediction before correction); 0 for an unanchored
+     * model, which votes on h11 directly.
      */
     public int firstPageEstimate() {
         return estimate;
     }
 
-    /** The winner's vote share for the last scored candidate. */
+    /** The h11 confidence of the last scored candidate: 1 when proved, else the shrunk vote share. */
     public double confidence() {
         return confidence;
     }

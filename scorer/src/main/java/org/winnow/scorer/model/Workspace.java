@@ -1,7 +1,6 @@
 package org.winnow.scorer.model;
 
 import org.winnow.geometry.Configuration;
-import org.winnow.geometry.hodge.RefinedH11Estimator;
 
 /**
  * Every buffer one forward (and backward) pass needs, sized for the largest configuration, so the hot
@@ -18,8 +17,8 @@ final class Workspace {
     final double[] xr = new double[MAX_R * Architecture.ROW_FEATURES];
     final double[] xc = new double[MAX_C * Architecture.COL_FEATURES];
     final double[] g = new double[Architecture.GLOBAL_FEATURES];
-    final RefinedH11Estimator estimator = new RefinedH11Estimator();
-    /** The first-page h11 estimate of the encoded configuration. */
+    final Anchor anchor = new Anchor();
+    /** The anchor h11 of the encoded configuration ({@link Anchor}). */
     int h11Estimate;
     final int[] colStart = new int[MAX_C + 1];
     final int[] colEdgeNode = new int[MAX_E];

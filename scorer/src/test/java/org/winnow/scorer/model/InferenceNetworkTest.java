@@ -126,7 +126,7 @@ class InferenceNetworkTest {
 
     /** The kernel vote on corrections, as {@link Predictor} documents it. */
     private static int oracleVote(FrozenModel model, Workspace ws, int[] nb, double[] dist, int k) {
-        if (ws.estimator.source() == org.winnow.geometry.hodge.RefinedH11Estimator.Source.ENGINE_EXACT) {
+        if (ws.anchor.h11Proved()) {
             return ws.h11Estimate;
         }
         double bw = model.calibration().bandwidth();
@@ -143,7 +143,11 @@ class InferenceNetworkTest {
                 best = c;
             }
         }
-        return (model.architecture().anchored() ? ws.h11Estimate : 0) + model.residual(best);
+        int voted = (model.architecture().anchored() ? ws.h11Estimate : 0) + model.residual(best);
+        org.winnow.geometry.hodge.KnownValue h11 = ws.anchor.tuple() == null ? null : ws.anchor.tuple().h11();
+        // A vote outside a proved interval is clamped into it.
+        return h11 == null || h11.basis() != org.winnow.geometry.hodge.Basis.BOUNDED ? voted
+                : (int) Math.max(h11.lo(), Math.min(h11.hi(), voted));
     }
 
     private static boolean nearerZero(FrozenModel model, int c, int over) {

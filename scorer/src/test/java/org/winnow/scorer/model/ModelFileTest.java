@@ -80,7 +80,16 @@ class ModelFileTest {
         byte[] bad = good.clone();
         ByteBuffer.wrap(bad).putInt(ModelFile.MAGIC.length, 7);
         Files.write(file, bad);
-        assertEquals(file + ": unsupported model format version 7 (this build reads version 3)", refusal());
+        assertEquals(file + ": unsupported model format version 7 (this build reads version 4)", refusal());
+    }
+
+    @Test
+    void aVersionThreeFileIsRefusedWithTheRetrainingCommand() throws IOException {
+        byte[] old = good.clone();
+        ByteBuffer.wrap(old).putInt(ModelFile.MAGIC.length, 3);
+        Files.write(file, old);
+        assertEquals(file + ": model format version 3 predates the tuple anchor (this build reads version 4); retrain it "
+                + "with 'winnow train --reference LABELLED.tsv --out MODEL.wnm'", refusal());
     }
 
     @Test
