@@ -57,14 +57,18 @@ def load_model(path):
     h11 = np.asarray(w["reference"]["h11"], dtype=np.int64)
     estimate = np.zeros(len(h11), dtype=np.int64)
     if model["anchored"]:
-        # The reference's anchors as winnow computed them (the Hodge engine's where a first page is
-        # unsettled); where the first page is settled ours must agree.
+        # The reference's anchors as winnow computed them (its tuple's h11: the Hodge engine's where a
+        # first page is unsettled, and where the one maximal-rank assumption of the plain first page does
+        # not hold). Where ours differs from a settled page, the exported anchor stands; say how often.
         estimate = np.asarray(w["reference"]["h11_estimate"], dtype=np.int64)
+        differ = 0
         for i, text in enumerate(w["reference"]["configs"]):
             n, q, _ = parse(text + "\t0")
             mine, _terms, settled = h11_estimate(n, q)
-            if settled and mine != estimate[i]:
-                sys.exit(f"numpy_scorer: {path}: the h11 estimate of {text} disagrees with the exported one")
+            differ += settled and mine != estimate[i]
+        if differ:
+            print(f"numpy_scorer: {differ} reference anchors differ from the plain first page; the exported ones are used",
+                  file=sys.stderr)
     # What each reference point votes for: its correction to the estimate (or h11 when unanchored).
     residual = h11 - estimate
     model["residuals"] = np.unique(residual)

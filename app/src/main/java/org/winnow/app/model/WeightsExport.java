@@ -4,8 +4,6 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.winnow.geometry.Checks;
-import org.winnow.geometry.Configuration;
-import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.scorer.model.Architecture;
 import org.winnow.scorer.model.Calibration;
 import org.winnow.scorer.model.FrozenModel;
@@ -108,12 +106,11 @@ final class WeightsExport {
         ArrayNode configs = ref.putArray("configs");
         ArrayNode emb = ref.putArray("embeddings");
         ArrayNode estimates = ref.putArray("h11_estimate");
-        RefinedH11Estimator estimator = new RefinedH11Estimator();
         double[] e = r.embeddings();
         for (int i = 0; i < r.size(); i++) {
             h11.add(r.h11(i));
             configs.add(r.configs()[i]);
-            estimates.add(estimator.estimate(Configuration.parse(r.configs()[i])));
+            estimates.add(model.referenceAnchor(i));
             ArrayNode point = emb.addArray();
             for (int d = 0; d < r.dim(); d++) {
                 point.add(e[i * r.dim() + d]);

@@ -72,9 +72,12 @@ public final class DemoCommand implements Callable<Integer> {
         survivors.sort(Comparator.comparingDouble(SurvivorLine::novelty).reversed().thenComparing(SurvivorLine::config));
         o.println();
         o.println("most novel survivors (novelty near 1 = unlike the reference):");
-        o.printf(Locale.ROOT, "  %-9s %-7s %-5s %-10s %s%n", "novelty", "chi", "h11", "confidence", "config");
+        o.printf(Locale.ROOT, "  %-9s %-7s %-5s %-15s %-10s %s%n", "novelty", "chi", "h11", "h11 basis", "confidence",
+                "config");
         for (SurvivorLine s : survivors.subList(0, Math.min(10, survivors.size()))) {
-            o.printf(Locale.ROOT, "  %-9.4f %-7d %-5d %-10.3f %s%n", s.novelty(), s.chi(), s.h11(), s.confidence(), s.config());
+            // How h11 is known (proved, bounded LO..HI or estimated) beside the value: a guess never passes for a proof.
+            o.printf(Locale.ROOT, "  %-9.4f %-7d %-5d %-15s %-10.3f %s%n", s.novelty(), s.chi(), s.h11(),
+                    s.h11Value().describeBasis(), s.confidence(), s.config());
         }
         o.println();
         o.println("files: survivors in " + scanDir.resolve(ScanFiles.SURVIVORS) + "*, counts in "

@@ -313,6 +313,14 @@ public final class FrozenModel {
         return residuals.length;
     }
 
+    /**
+     * The anchor h11 reference point {@code i} was corrected from (its exact h11 minus its correction);
+     * 0 for an unanchored model, which votes on h11 itself.
+     */
+    public int referenceAnchor(int i) {
+        return reference.h11(i) - residuals[residualOf[i]];
+    }
+
     /** True iff every reference label holds the four-fold tuple (h11, h21, h31, h22). */
     private static boolean fullLabels(ReferenceSet reference) {
         for (int[] h : reference.hodge()) {

@@ -204,6 +204,14 @@ public final class Predictor {
         return ws.anchor.tuple();
     }
 
+    /**
+     * The h11 the vote alone gives for the last scored candidate: its anchor plus the winning correction,
+     * before a proof replaces it or a proved interval clamps it (what a port of the vote reproduces).
+     */
+    public int votedH11() {
+        return estimate + model.residual(winner);
+    }
+
     /** The h11 each voting neighbour stands for, nearest first, for the last scored candidate. */
     public int[] neighbourH11() {
         int k = Math.min(model.calibration().k(), found);
