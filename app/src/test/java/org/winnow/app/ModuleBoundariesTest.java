@@ -1,6 +1,7 @@
 package org.winnow.app;
 
 import static com.tngtech.archunit.lang.syntax.ArchRuleDefinition.noClasses;
+import static com.tngtech.archunit.library.dependencies.SlicesRuleDefinition.slices;
 
 import com.tngtech.archunit.core.domain.JavaClasses;
 import com.tngtech.archunit.core.importer.ClassFileImporter;
@@ -12,7 +13,8 @@ import org.junit.jupiter.api.Test;
  * The module graph is a DAG: geometry depends on nothing of ours, pipeline only on geometry, the three
  * stages never import each other, and the Kafka transport (module {@code kafka}) sits beside the stages,
  * used only by app (and bench): neither the stage contract nor a stage may reach it. Only app wires
- * them. Checked here on the compiled classes rather than left to memory.
+ * them. Inside the scorer, one concern a package (network, index, reference, model, training, rules,
+ * stage) without cycles, and training stays off the scoring path. Checked here on the compiled classes rather than left to memory.
  */
 class ModuleBoundariesTest {
     private static JavaClasses classes;
@@ -83,6 +85,20 @@ class ModuleBoundariesTest {
     @Test
     void sinkImportsNeitherProducerNorScorer() {
         stageIsolated("org.winnow.sink..", "org.winnow.producer..", "org.winnow.scorer..");
+    }
+
+    @Test
+    void theScoringPathNeverReachesTraining() {
+        noClasses().that().resideInAnyPackage("org.winnow.scorer.stage..", "org.winnow.scorer.model..",
+                        "org.winnow.scorer.network..", "org.winnow.scorer.index..", "org.winnow.scorer.rules..",
+                        "org.winnow.scorer.reference..")
+                .should().dependOnClassesThat().resideInAPackage("org.winnow.scorer.training..")
+                .check(classes);
+    }
+
+    @Test
+    void theScorersPackagesFormADag() {
+        slices().matching("org.winnow.scorer.(*)..").should().beFreeOfCycles().check(classes);
     }
 
     private static void stageIsolated(String stage, String... others) {

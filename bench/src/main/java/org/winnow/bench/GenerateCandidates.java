@@ -14,7 +14,7 @@ import org.winnow.producer.Bounds;
 import org.winnow.producer.Enumerator;
 import org.winnow.producer.ExclusionSet;
 import org.winnow.producer.ShardSpec;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 import picocli.CommandLine;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Option;

@@ -17,13 +17,13 @@ import org.junit.jupiter.api.io.TempDir;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.producer.ExclusionSet;
-import org.winnow.scorer.model.Architecture;
+import org.winnow.scorer.network.Architecture;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.model.Predictor;
-import org.winnow.scorer.model.Trainer;
-import org.winnow.scorer.model.TrainingOptions;
-import org.winnow.scorer.model.TrainingProgress;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.training.TrainingOptions;
+import org.winnow.scorer.training.TrainingProgress;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 
 /**
  * The numpy reference scorer reads the exported weights and must predict exactly what winnow's

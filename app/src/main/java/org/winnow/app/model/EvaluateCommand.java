@@ -14,7 +14,7 @@ import org.winnow.app.cli.Exit;
 import org.winnow.app.report.EvaluationFile;
 import org.winnow.scorer.model.Evaluation;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.LabelledExample;
+import org.winnow.scorer.reference.LabelledExample;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Option;

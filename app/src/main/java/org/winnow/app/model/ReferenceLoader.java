@@ -7,8 +7,8 @@ import java.util.ArrayList;
 import java.util.List;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.invariants.InvariantCalculator;
-import org.winnow.scorer.model.LabelledExample;
-import org.winnow.scorer.model.ReferenceTsv;
+import org.winnow.scorer.reference.LabelledExample;
+import org.winnow.scorer.reference.ReferenceTsv;
 
 /**
  * Reads a reference file for the model commands: keeps the exact rows, computes each row's chi with

@@ -4,11 +4,11 @@ import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import org.winnow.geometry.Checks;
-import org.winnow.scorer.model.Architecture;
+import org.winnow.scorer.network.Architecture;
 import org.winnow.scorer.model.Calibration;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.Normalisation;
-import org.winnow.scorer.model.ReferenceSet;
+import org.winnow.scorer.network.Normalisation;
+import org.winnow.scorer.reference.ReferenceSet;
 
 /**
  * The frozen model as plain JSON (format {@code winnow-weights}, version 2; documented in

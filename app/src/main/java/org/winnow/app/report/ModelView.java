@@ -6,7 +6,7 @@ import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Reason;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.ReferenceSet;
+import org.winnow.scorer.reference.ReferenceSet;
 import org.winnow.scorer.rules.KeepRules;
 import org.winnow.scorer.rules.RuleException;
 import org.winnow.scorer.rules.RulesFile;

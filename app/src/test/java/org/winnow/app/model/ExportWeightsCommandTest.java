@@ -15,12 +15,12 @@ import java.util.List;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
-import org.winnow.scorer.model.Architecture;
+import org.winnow.scorer.network.Architecture;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.Trainer;
-import org.winnow.scorer.model.TrainingOptions;
-import org.winnow.scorer.model.TrainingProgress;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.training.TrainingOptions;
+import org.winnow.scorer.training.TrainingProgress;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 import picocli.CommandLine;
 
 class ExportWeightsCommandTest {

@@ -16,9 +16,9 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.LabelledExample;
-import org.winnow.scorer.model.ReferenceTsv;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.reference.LabelledExample;
+import org.winnow.scorer.reference.ReferenceTsv;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 import picocli.CommandLine;
 
 /** {@code winnow train} and {@code winnow evaluate} end to end on a small synthetic reference file. */

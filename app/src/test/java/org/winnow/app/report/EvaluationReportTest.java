@@ -22,8 +22,8 @@ import org.junit.jupiter.api.io.TempDir;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.scorer.model.Evaluation;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.LabelledExample;
-import org.winnow.scorer.model.ReferenceTsv;
+import org.winnow.scorer.reference.LabelledExample;
+import org.winnow.scorer.reference.ReferenceTsv;
 
 /** {@code winnow evaluate --out} writes its results as JSON, and {@code winnow report} renders them. */
 class EvaluationReportTest {

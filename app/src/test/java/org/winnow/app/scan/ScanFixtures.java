@@ -7,12 +7,12 @@ import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
 import org.winnow.geometry.Configuration;
-import org.winnow.scorer.model.Architecture;
+import org.winnow.scorer.network.Architecture;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.Trainer;
-import org.winnow.scorer.model.TrainingOptions;
-import org.winnow.scorer.model.TrainingProgress;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.training.TrainingOptions;
+import org.winnow.scorer.training.TrainingProgress;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 
 /**
  * A small model trained on the project's synthetic development scenario, and input files drawn from

@@ -6,15 +6,15 @@ import java.util.List;
 import java.util.Locale;
 import java.util.SplittableRandom;
 import org.winnow.geometry.Configuration;
-import org.winnow.scorer.model.FlatIndex;
+import org.winnow.scorer.index.FlatIndex;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.LabelledExample;
+import org.winnow.scorer.reference.LabelledExample;
 import org.winnow.scorer.model.Predictor;
-import org.winnow.scorer.model.StratifiedSplit;
-import org.winnow.scorer.model.Trainer;
-import org.winnow.scorer.model.TrainingOptions;
-import org.winnow.scorer.model.TrainingProgress;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.reference.StratifiedSplit;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.training.TrainingOptions;
+import org.winnow.scorer.training.TrainingProgress;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 import smile.neighbor.KDTree;
 
 /**

@@ -15,7 +15,7 @@ import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.Warmup;
 import org.openjdk.jmh.infra.Blackhole;
-import org.winnow.scorer.model.FlatIndex;
+import org.winnow.scorer.index.FlatIndex;
 import smile.neighbor.KDTree;
 import smile.neighbor.Neighbor;
 

@@ -17,12 +17,12 @@ import org.openjdk.jmh.annotations.Warmup;
 import org.openjdk.jmh.infra.Blackhole;
 import org.winnow.geometry.Configuration;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.LabelledExample;
+import org.winnow.scorer.reference.LabelledExample;
 import org.winnow.scorer.model.Predictor;
-import org.winnow.scorer.model.Trainer;
-import org.winnow.scorer.model.TrainingOptions;
-import org.winnow.scorer.model.TrainingProgress;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.training.TrainingOptions;
+import org.winnow.scorer.training.TrainingProgress;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 
 /**
  * Candidates scored per second on one thread: embed + k nearest reference points + vote + novelty,

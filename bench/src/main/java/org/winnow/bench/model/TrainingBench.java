@@ -15,12 +15,12 @@ import org.openjdk.jmh.annotations.Setup;
 import org.openjdk.jmh.annotations.State;
 import org.openjdk.jmh.annotations.Warmup;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.LabelledExample;
-import org.winnow.scorer.model.StratifiedSplit;
-import org.winnow.scorer.model.Trainer;
-import org.winnow.scorer.model.TrainingOptions;
-import org.winnow.scorer.model.TrainingProgress;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.reference.LabelledExample;
+import org.winnow.scorer.reference.StratifiedSplit;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.training.TrainingOptions;
+import org.winnow.scorer.training.TrainingProgress;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 
 /**
  * Wall time of one full training run with the default options (40 epochs, d = 8) on a stratified 1%

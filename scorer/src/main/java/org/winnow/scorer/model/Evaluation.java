@@ -5,6 +5,7 @@ import java.util.Arrays;
 import java.util.List;
 import java.util.TreeSet;
 import org.winnow.geometry.Checks;
+import org.winnow.scorer.reference.LabelledExample;
 
 /**
  * Held-out metrics of a frozen model: h11 accuracy, per-class recall and precision, the confusion

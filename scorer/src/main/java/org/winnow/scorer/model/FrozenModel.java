@@ -5,6 +5,16 @@ import java.nio.file.Path;
 import java.util.Arrays;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.Configuration;
+import org.winnow.scorer.index.AnchoredIndex;
+import org.winnow.scorer.index.FlatIndex;
+import org.winnow.scorer.index.NeighbourIndex;
+import org.winnow.scorer.network.Anchor;
+import org.winnow.scorer.network.Architecture;
+import org.winnow.scorer.network.FeatureEncoder;
+import org.winnow.scorer.network.InferenceNetwork;
+import org.winnow.scorer.network.Normalisation;
+import org.winnow.scorer.network.Workspace;
+import org.winnow.scorer.reference.ReferenceSet;
 
 /**
  * A trained, immutable similarity model: architecture, weights, input normalisation, the reference

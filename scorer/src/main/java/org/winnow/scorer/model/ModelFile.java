@@ -16,6 +16,9 @@ import java.security.MessageDigest;
 import java.security.NoSuchAlgorithmException;
 import java.util.Arrays;
 import java.util.HexFormat;
+import org.winnow.scorer.network.Architecture;
+import org.winnow.scorer.network.Normalisation;
+import org.winnow.scorer.reference.ReferenceSet;
 
 /**
  * The {@code .wnm} container: {@link #MAGIC} (8 bytes), the format version (4 bytes, big-endian), the
@@ -26,7 +29,7 @@ import java.util.HexFormat;
 final class ModelFile {
     static final byte[] MAGIC = "WNMODEL\u0000".getBytes(StandardCharsets.US_ASCII);
     /**
-     * 4 since the anchor is the Hodge tuple with the basis of every value ({@link Anchor}): a version-3
+     * 4 since the anchor is the Hodge tuple with the basis of every value ({@link org.winnow.scorer.network.Anchor}): a version-3
      * file's reference embeddings and corrections were made with the h11-only anchor, so such a file is
      * refused with the command that retrains it, rather than read with votes that no longer mean what
      * they meant.

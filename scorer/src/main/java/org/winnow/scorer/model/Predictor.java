@@ -7,6 +7,8 @@ import org.winnow.geometry.hodge.RefinedH11Estimator;
 import org.winnow.geometry.hodge.TupleEstimate;
 import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Prediction;
+import org.winnow.scorer.network.FeatureEncoder;
+import org.winnow.scorer.network.Workspace;
 
 /**
  * Scores candidates against one {@link FrozenModel}: embed, find the nearest reference points, vote,
@@ -14,7 +16,7 @@ import org.winnow.pipeline.Prediction;
  * from {@link FrozenModel#newPredictor()}. {@link #score} allocates only the anchor's small tuple
  * records; {@link #predict} adds the returned records.
  *
- * <p>The anchor is the candidate's Hodge tuple ({@link Anchor}): each value with its basis. The vote
+ * <p>The anchor is the candidate's Hodge tuple ({@link org.winnow.scorer.network.Anchor}): each value with its basis. The vote
  * weighs each of the k nearest reference points as {@link Calibration} describes. What a neighbour votes
  * for is a correction: its exact h11 minus its own anchor h11 (and, on a four-fold model with full labels,
  * its exact h31 minus its own tuple's h31); the prediction is the candidate's value plus the winning
@@ -222,7 +224,7 @@ public final class Predictor {
         return votes;
     }
 
-    /** How the last candidate's anchor h11 was found, in the terms of the h11-only anchor ({@link Anchor#source()}). */
+    /** How the last candidate's anchor h11 was found, in the terms of the h11-only anchor ({@link org.winnow.scorer.network.Anchor#source()}). */
     public RefinedH11Estimator.Source estimateSource() {
         return ws.anchor.source();
     }

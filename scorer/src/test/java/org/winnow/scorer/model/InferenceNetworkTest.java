@@ -16,7 +16,17 @@ import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.pipeline.Prediction;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
+import org.winnow.scorer.index.FlatIndex;
+import org.winnow.scorer.reference.LabelledExample;
+import org.winnow.scorer.reference.ReferenceTsv;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.network.Architecture;
+import org.winnow.scorer.network.EmbeddingNetwork;
+import org.winnow.scorer.network.FeatureEncoder;
+import org.winnow.scorer.network.InferenceNetwork;
+import org.winnow.scorer.network.Normalisation;
+import org.winnow.scorer.network.Workspace;
 
 /** The scoring forward pass against the training forward pass, {@link EmbeddingNetwork#forward}, as the oracle. */
 class InferenceNetworkTest {

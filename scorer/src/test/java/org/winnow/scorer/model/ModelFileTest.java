@@ -13,7 +13,8 @@ import org.junit.jupiter.api.BeforeEach;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.pipeline.Prediction;
-import org.winnow.scorer.model.synthetic.SyntheticScenario;
+import org.winnow.scorer.reference.synthetic.SyntheticScenario;
+import org.winnow.scorer.reference.LabelledExample;
 
 class ModelFileTest {
     @TempDir

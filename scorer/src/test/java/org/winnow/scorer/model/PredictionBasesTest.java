@@ -20,6 +20,10 @@ import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.geometry.invariants.RandomConfigurations;
 import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Prediction;
+import org.winnow.scorer.reference.LabelledExample;
+import org.winnow.scorer.training.Trainer;
+import org.winnow.scorer.training.TrainingOptions;
+import org.winnow.scorer.training.TrainingProgress;
 
 /**
  * What the scorer shows a researcher: every predicted value with its basis. A value marked proved must

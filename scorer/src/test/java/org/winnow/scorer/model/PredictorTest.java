@@ -7,6 +7,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Prediction;
+import org.winnow.scorer.network.Architecture;
+import org.winnow.scorer.network.Normalisation;
+import org.winnow.scorer.reference.ReferenceSet;
+import org.winnow.scorer.training.Trainer;
 
 /** The vote, the derived Hodge numbers and the novelty direction, on hand-built models. */
 class PredictorTest {
