@@ -73,6 +73,8 @@ public final class SampleCommand implements Callable<Integer> {
             return Exit.badInput(err, "sample", reference + ": no such file");
         } catch (IllegalArgumentException e) {
             return Exit.badInput(err, "sample", reference + ": " + e.getMessage());
+        } catch (IOException e) {
+            return Exit.badInput(err, "sample", reference + ": cannot read (" + e.getMessage() + ")");
         }
         List<ReferenceTsv.Row> pool = new ArrayList<>();
         int leftOut = 0;

@@ -3,6 +3,9 @@ package org.winnow.scorer.reference;
 import java.io.BufferedReader;
 import java.io.BufferedWriter;
 import java.io.IOException;
+import java.io.InputStream;
+import java.io.InputStreamReader;
+import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -20,6 +23,12 @@ import org.winnow.geometry.ConfigurationText;
  * {@code exact} or {@code bounded}, {@code source} is {@code computed}, {@code imported} or {@code product}. Blank
  * lines and {@code #} comments are skipped. Hodge values of a bounded row may be non-integers (for
  * example ranges) and are then kept as text only; training uses exact rows alone.
+ *
+ * <p>The header decides the dimension: the four-value header holds four-folds only, the two-value header
+ * everything below. A four-fold under the two-value header has no h31 and h22 to check its chi against, and
+ * a three-fold under the four-value header has meaningless ones; both are refused rather than half-read.
+ * Bytes that are not UTF-8 become U+FFFD, so they make a bad line with its number; Hodge values are
+ * ASCII digits only ({@code Integer.parseInt} would read fullwidth digits as numbers).
  */
 public final class ReferenceTsv {
     /** Label status. */
@@ -54,11 +63,17 @@ public final class ReferenceTsv {
      * Reads every row.
      *
      * @throws IllegalArgumentException with a one-line message {@code line N: reason} on the first bad line
+     * @throws IOException when the file cannot be read at all (missing, a directory, unreadable)
      */
     public static List<Row> read(Path path) throws IOException {
-        try (BufferedReader in = Files.newBufferedReader(path, StandardCharsets.UTF_8)) {
+        try (InputStream in = Files.newInputStream(path)) {
             return read(in);
         }
+    }
+
+    static List<Row> read(InputStream bytes) throws IOException {
+        return read(new BufferedReader(new InputStreamReader(bytes, StandardCharsets.UTF_8.newDecoder()
+                .onMalformedInput(CodingErrorAction.REPLACE).onUnmappableCharacter(CodingErrorAction.REPLACE))));
     }
 
     static List<Row> read(BufferedReader in) throws IOException {
@@ -77,7 +92,7 @@ public final class ReferenceTsv {
                 header = Arrays.stream(f).map(s -> s.strip().toLowerCase(Locale.ROOT)).toList();
                 if (!header.equals(THREEFOLD) && !header.equals(FOURFOLD)) {
                     throw new IllegalArgumentException("line " + lineNo + ": expected the tab-separated header "
-                            + String.join(" ", THREEFOLD) + " (or with h31 h22 after h21), got '" + line + "'");
+                            + String.join(" ", THREEFOLD) + " (or with h31 h22 after h21), got '" + excerpt(line) + "'");
                 }
                 continue;
             }
@@ -92,23 +107,29 @@ public final class ReferenceTsv {
                 throw new IllegalArgumentException(e.getMessage(), e);
             }
             int values = header.size() - 3;
+            if ((config.dimension() == 4) != (values == 4)) {
+                throw new IllegalArgumentException("line " + lineNo + ": " + excerpt(f[0].strip()) + " has dimension "
+                        + config.dimension() + (values == 4 ? ", but the header's h31 h22 columns are for four-folds only"
+                        : ", but the header has no h31 h22 columns, which a four-fold needs")
+                        + "; keep four-folds and lower dimensions in separate files");
+            }
             Status status = parseEnum(Status.class, f[values + 1], "status", "exact | bounded", lineNo);
             Source source = parseEnum(Source.class, f[values + 2], "source", "computed | imported | product", lineNo);
             int[] hodge = new int[values];
             boolean integral = true;
             for (int i = 0; i < values; i++) {
                 String s = f[1 + i].strip();
-                try {
-                    hodge[i] = Integer.parseInt(s);
-                    if (hodge[i] < 0) {
-                        throw new IllegalArgumentException("line " + lineNo + ": " + header.get(1 + i)
-                                + " must not be negative: " + s);
-                    }
-                } catch (NumberFormatException e) {
-                    if (status == Status.EXACT) {
-                        throw new IllegalArgumentException("line " + lineNo + ": " + header.get(1 + i)
-                                + " of an exact row must be an integer, got '" + s + "'");
-                    }
+                if (s.startsWith("-") && s.length() > 1 && s.substring(1).chars().allMatch(ReferenceTsv::asciiDigit)) {
+                    throw new IllegalArgumentException("line " + lineNo + ": " + header.get(1 + i)
+                            + " must not be negative: " + excerpt(s));
+                }
+                int v = naturalNumber(s);
+                if (v >= 0) {
+                    hodge[i] = v;
+                } else if (status == Status.EXACT) {
+                    throw new IllegalArgumentException("line " + lineNo + ": " + header.get(1 + i)
+                            + " of an exact row must be a whole number of ASCII digits below 2^31, got '" + excerpt(s) + "'");
+                } else {
                     integral = false;
                 }
             }
@@ -127,8 +148,34 @@ public final class ReferenceTsv {
             return Enum.valueOf(type, text.strip().toUpperCase(Locale.ROOT));
         } catch (IllegalArgumentException e) {
             throw new IllegalArgumentException("line " + lineNo + ": " + what + " must be " + allowed + ", got '"
-                    + text.strip() + "'");
+                    + excerpt(text.strip()) + "'");
         }
+    }
+
+    private static boolean asciiDigit(int c) {
+        return c >= '0' && c <= '9';
+    }
+
+    /** {@code s} as a number of ASCII digits that fits an int, else -1. */
+    private static int naturalNumber(String s) {
+        if (s.isEmpty() || s.length() > 10 || !s.chars().allMatch(ReferenceTsv::asciiDigit)) {
+            return -1;
+        }
+        long v = Long.parseLong(s);
+        return v > Integer.MAX_VALUE ? -1 : (int) v;
+    }
+
+    /** Text quoted back in a message: printable ASCII, cut after 80 characters with the full length said. */
+    static String excerpt(String text) {
+        StringBuilder sb = new StringBuilder();
+        for (int i = 0; i < text.length() && i < 80; i++) {
+            char c = text.charAt(i);
+            sb.append(c >= 0x20 && c < 0x7f ? String.valueOf(c) : String.format("\\u%04X", (int) c));
+        }
+        if (text.length() > 80) {
+            sb.append("... (").append(text.length()).append(" characters)");
+        }
+        return sb.toString();
     }
 
     /** Writes rows with the header that fits their label width (2 or 4 Hodge numbers). */
