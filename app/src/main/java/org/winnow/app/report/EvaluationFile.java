@@ -1,19 +1,31 @@
 package org.winnow.app.report;
 
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
 import com.fasterxml.jackson.databind.SerializationFeature;
+import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
+import java.security.MessageDigest;
+import java.security.NoSuchAlgorithmException;
 import java.util.ArrayList;
+import java.util.HexFormat;
 import java.util.List;
+import org.winnow.app.cli.Limits;
 import org.winnow.scorer.model.Evaluation;
 
 /**
  * The machine-readable result of {@code winnow evaluate --out DIR}: {@value #FILE} in that directory,
  * beside the two pictures. Values that are not defined (a recall without members, an AUROC without a
  * held-out class) are JSON {@code null}, never a made-up number.
+ *
+ * <p>Since format 2 the file carries {@value #CHECKSUM}, the SHA-256 of its own compact JSON without that
+ * field, so that a flipped digit that still parses is refused rather than shown in a report; and a reader
+ * checks that the numbers agree with each other (the confusion rows add up to the support, shares lie in
+ * [0, 1]), so a file edited and re-checksummed by hand cannot make the report draw nonsense either.
  *
  * @param formatVersion      {@value #FORMAT_VERSION}
  * @param kind               {@value #KIND}, so that a report can tell this file from others
@@ -47,10 +59,12 @@ public record EvaluationFile(int formatVersion, String kind, String model, Strin
         String confusionPlot, double scoringSeconds) {
     /** The file name inside the output directory. */
     public static final String FILE = "evaluation.json";
-    static final int FORMAT_VERSION = 1;
+    static final int FORMAT_VERSION = 2;
     static final String KIND = "winnow-evaluation";
+    static final String CHECKSUM = "checksum";
 
     private static final ObjectMapper JSON = new ObjectMapper().enable(SerializationFeature.INDENT_OUTPUT);
+    private static final ObjectMapper COMPACT = new ObjectMapper();
 
     /**
      * One confidence bin, {@code [low, high)} (the last closed at 1).
@@ -83,35 +97,144 @@ public record EvaluationFile(int formatVersion, String kind, String model, Strin
         Files.createDirectories(dir);
         Path target = dir.resolve(FILE);
         Path tmp = dir.resolve(FILE + ".tmp");
-        JSON.writeValue(tmp.toFile(), this);
+        ObjectNode tree = JSON.valueToTree(this);
+        tree.put(CHECKSUM, checksum(tree));
+        Files.write(tmp, JSON.writeValueAsBytes(tree));
         Files.move(tmp, target, StandardCopyOption.REPLACE_EXISTING, StandardCopyOption.ATOMIC_MOVE);
         return target;
     }
 
     /** Reads and checks a file written by {@link #write}; the message of the exception names the file and the reason. */
     static EvaluationFile read(Path file) throws IOException {
+        if (!Files.isRegularFile(file)) {
+            throw new IOException(file + ": " + (Files.exists(file) ? "not a regular file" : "no such file")
+                    + ", expected the " + FILE + " of winnow evaluate --out");
+        }
+        return parse(Files.readAllBytes(file), file);
+    }
+
+    /** {@link #read} on bytes already read; {@code file} names them in messages. */
+    static EvaluationFile parse(byte[] bytes, Path file) throws IOException {
         EvaluationFile f;
         try {
-            f = JSON.readValue(file.toFile(), EvaluationFile.class);
-        } catch (IOException e) {
-            throw new IOException(file + ": not a readable evaluation file (" + e.getMessage().lines().findFirst()
-                    .orElse("") + ")", e);
+            JsonNode tree = JSON.readTree(bytes);
+            if (tree == null || !tree.isObject()) {
+                throw new IOException(file + ": not a readable evaluation file (not a JSON object)");
+            }
+            ObjectNode object = (ObjectNode) tree;
+            JsonNode kind = object.get("kind");
+            JsonNode version = object.get("formatVersion");
+            if (kind == null || !KIND.equals(kind.asText()) || version == null || !version.isInt()) {
+                throw new IOException(file + ": not a winnow evaluation file (kind " + Limits.excerpt(String.valueOf(kind))
+                        + ", expected \"" + KIND + "\")");
+            }
+            if (version.intValue() != FORMAT_VERSION) {
+                throw new IOException(file + ": evaluation file format " + version.intValue() + ", this version reads "
+                        + FORMAT_VERSION + "; run winnow evaluate --out again");
+            }
+            JsonNode recorded = object.remove(CHECKSUM);
+            if (recorded == null || !recorded.isTextual()) {
+                throw new IOException(file + ": not a readable evaluation file (no " + CHECKSUM + " field)");
+            }
+            if (!recorded.asText().equals(checksum(object))) {
+                throw new IOException(file + ": its content differs from its own " + CHECKSUM
+                        + " (edited or damaged after it was written)");
+            }
+            f = JSON.treeToValue(object, EvaluationFile.class);
+        } catch (JsonProcessingException e) {
+            String where = e.getLocation() == null ? "" : "line " + e.getLocation().getLineNr() + ": ";
+            throw new IOException(file + ": " + where + "not a readable evaluation file ("
+                    + Limits.excerpt(String.valueOf(e.getOriginalMessage()).lines().findFirst().orElse("")) + ")", e);
         }
-        if (!KIND.equals(f.kind()) || f.formatVersion() != FORMAT_VERSION) {
-            throw new IOException(file + ": kind " + f.kind() + " version " + f.formatVersion() + ", expected " + KIND
-                    + " version " + FORMAT_VERSION);
+        if (f == null) {
+            throw new IOException(file + ": not a readable evaluation file (it holds null)");
         }
-        int n = f.classes() == null ? -1 : f.classes().length;
-        boolean square = n >= 0 && f.confusion() != null && f.confusion().length == n;
-        for (int r = 0; square && r < n; r++) {
-            square = f.confusion()[r] != null && f.confusion()[r].length == n;
-        }
-        if (!square || f.support() == null || f.support().length != n || f.recall() == null || f.recall().length != n
-                || f.precision() == null || f.precision().length != n || f.reliability() == null || f.summary() == null) {
-            throw new IOException(file + ": the per-class arrays and the confusion matrix do not match its " + n
-                    + " classes, or a section is missing");
+        String problem = f.problem();
+        if (problem != null) {
+            throw new IOException(file + ": " + problem);
         }
         return f;
+    }
+
+    /** What is inconsistent in this file, or null. */
+    private String problem() {
+        if (model == null || modelChecksum == null || testFile == null || summary == null || reliability == null
+                || summary.contains(null) || reliability.contains(null)) {
+            return "a name, the summary or the reliability table is missing";
+        }
+        for (String name : new String[] {model, modelChecksum, testFile, embeddingPlot, confusionPlot}) {
+            if (name != null && (name.isEmpty() || name.chars().anyMatch(c -> c < 0x20))) {
+                return "a file name or checksum is empty or holds a control character: '" + Limits.excerpt(name) + "'";
+            }
+        }
+        int n = classes == null ? -1 : classes.length;
+        boolean square = n >= 0 && confusion != null && confusion.length == n;
+        for (int r = 0; square && r < n; r++) {
+            square = confusion[r] != null && confusion[r].length == n;
+        }
+        if (!square || support == null || support.length != n || recall == null || recall.length != n
+                || precision == null || precision.length != n) {
+            return "the per-class arrays and the confusion matrix do not match its " + n + " classes";
+        }
+        if (modelReference < 0 || testRows < 0 || inModelReference < 0 || boundedSkipped < 0 || examples < 0
+                || holdoutExamples < 0 || !(scoringSeconds >= 0) || Double.isInfinite(scoringSeconds)) {
+            return "a count or the scoring time is negative";
+        }
+        long total = 0;
+        for (int t = 0; t < n; t++) {
+            long row = 0;
+            for (int p = 0; p < n; p++) {
+                if (confusion[t][p] < 0) {
+                    return "a confusion count is negative";
+                }
+                row += confusion[t][p];
+            }
+            if (row != support[t]) {
+                return "confusion row of class " + classes[t] + " adds up to " + row + ", not to its support " + support[t];
+            }
+            if (t > 0 && classes[t] <= classes[t - 1]) {
+                return "the classes are not ascending";
+            }
+            if (!share(recall[t]) || !share(precision[t])) {
+                return "a recall or precision of class " + classes[t] + " is outside [0, 1]";
+            }
+            total += row;
+        }
+        if (total != examples) {
+            return "the confusion matrix holds " + total + " examples, not " + examples;
+        }
+        if ((accuracy == null) != (examples == 0) || !share(accuracy) || !share(noveltyAuroc)) {
+            return "the accuracy or the novelty AUROC is missing or outside [0, 1]";
+        }
+        long binned = 0;
+        for (Bin b : reliability) {
+            if (!(b.low() >= 0 && b.low() < b.high() && b.high() <= 1) || b.count() < 0 || !share(b.meanConfidence())
+                    || !share(b.accuracy())) {
+                return "a reliability bin is not a band of [0, 1] with a count and shares in it";
+            }
+            binned += b.count();
+        }
+        if (binned != examples) {
+            return "the reliability bins hold " + binned + " examples, not " + examples;
+        }
+        if (testRows != examples + holdoutExamples || (holdoutClass == null && holdoutExamples != 0)) {
+            return "test rows " + testRows + " are not the " + examples + " examples and " + holdoutExamples
+                    + " held-out ones";
+        }
+        return null;
+    }
+
+    private static boolean share(Double v) {
+        return v == null || (v >= 0 && v <= 1);
+    }
+
+    private static String checksum(ObjectNode withoutChecksum) throws JsonProcessingException {
+        try {
+            return HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256")
+                    .digest(COMPACT.writeValueAsBytes(withoutChecksum)));
+        } catch (NoSuchAlgorithmException e) {
+            throw new IllegalStateException("every Java platform has SHA-256", e);
+        }
     }
 
     private static Double orNull(double v) {

@@ -4,6 +4,7 @@ import java.awt.Color;
 import java.io.IOException;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.Arrays;
 import java.util.Base64;
 import java.util.List;
 import java.util.Locale;
@@ -16,6 +17,10 @@ import java.util.Locale;
 final class EvaluationHtml {
     /** The section ids, in page order. */
     static final List<String> SECTIONS = List.of("summary", "per-class", "confusion", "reliability", "embedding");
+
+    /** The largest picture inlined; {@code winnow evaluate} draws them at well under 1 MB. */
+    static final long MAX_PICTURE_BYTES = 16L << 20;
+    private static final byte[] PNG_SIGNATURE = {(byte) 0x89, 'P', 'N', 'G', '\r', '\n', 0x1A, '\n'};
 
     private EvaluationHtml() {}
 
@@ -141,11 +146,20 @@ final class EvaluationHtml {
             h.append("<p>The evaluation names no picture here.</p>\n");
             return;
         }
-        Path f = dir.resolve(name);
         byte[] png;
         try {
+            Path f = dir.resolve(name);
+            // The file names the picture, so a hand-made one could name /dev/zero or a huge file: read only
+            // a regular file of picture size that starts like a PNG.
+            if (!Files.isRegularFile(f) || Files.size(f) > MAX_PICTURE_BYTES) {
+                throw new IOException("not a regular file of at most " + MAX_PICTURE_BYTES + " bytes");
+            }
             png = Files.readAllBytes(f);
-        } catch (IOException ex) {
+            if (png.length < PNG_SIGNATURE.length || !Arrays.equals(png, 0, PNG_SIGNATURE.length, PNG_SIGNATURE, 0,
+                    PNG_SIGNATURE.length)) {
+                throw new IOException("not a PNG picture");
+            }
+        } catch (IOException | java.nio.file.InvalidPathException ex) {
             h.append("<p class=\"warning\">The picture <code>").append(ReportHtml.esc(name))
                     .append("</code> cannot be read (").append(ReportHtml.esc(String.valueOf(ex.getMessage())))
                     .append(").</p>\n");
