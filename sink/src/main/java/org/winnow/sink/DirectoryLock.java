@@ -89,21 +89,33 @@ public final class DirectoryLock implements AutoCloseable {
 
     /** True iff {@code dir} exists and no process holds its lock now; for readers that want a still directory. */
     public static boolean isFree(Path dir) {
+        return holderIfHeld(dir) == null;
+    }
+
+    /**
+     * Null when no process holds the lock of {@code dir} now, else who holds it as its note says ("another
+     * process" without a note); for readers that want a still directory and a refusal that names the holder.
+     */
+    public static String holderIfHeld(Path dir) {
         Path file = dir.resolve(ScanFiles.LOCK);
         if (!Files.exists(file)) {
-            return true;
+            return null;
         }
         try (FileChannel ch = FileChannel.open(file, StandardOpenOption.READ, StandardOpenOption.WRITE)) {
-            FileLock l = ch.tryLock();
+            FileLock l;
+            try {
+                l = ch.tryLock();
+            } catch (OverlappingFileLockException e) {
+                l = null;
+            }
             if (l == null) {
-                return false;
+                String holder = holder(ch);
+                return holder.isEmpty() ? "another process" : holder;
             }
             l.release();
-            return true;
-        } catch (OverlappingFileLockException e) {
-            return false;
+            return null;
         } catch (IOException e) {
-            return true;
+            return null;
         }
     }
 

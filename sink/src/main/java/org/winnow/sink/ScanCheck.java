@@ -59,8 +59,9 @@ public final class ScanCheck {
         if (!Files.isDirectory(dir)) {
             throw new ScanDamagedException(dir + ": " + (Files.exists(dir) ? "not a directory" : "no such directory"));
         }
-        if (!DirectoryLock.isFree(dir)) {
-            throw new ScanDamagedException(dir + ": a scan is writing it now; check it when the scan has stopped");
+        String holder = DirectoryLock.holderIfHeld(dir);
+        if (holder != null) {
+            throw new ScanDamagedException(dir + ": in use by " + holder + "; check it when that scan has stopped");
         }
         Path manifestFile = dir.resolve(ScanFiles.MANIFEST);
         Path checkpointFile = dir.resolve(ScanFiles.CHECKPOINT);

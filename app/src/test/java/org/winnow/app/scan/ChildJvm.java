@@ -14,13 +14,18 @@ final class ChildJvm {
 
     /** A process builder for {@code java [jvmOptions] org.winnow.app.cli.WinnowCli args}, output to {@code log}. */
     static ProcessBuilder winnow(Path log, List<String> jvmOptions, List<String> args) {
+        return java(log, jvmOptions, "org.winnow.app.cli.WinnowCli", args);
+    }
+
+    /** A process builder for {@code java [jvmOptions] mainClass args} on this test's class path, output to {@code log}. */
+    static ProcessBuilder java(Path log, List<String> jvmOptions, String mainClass, List<String> args) {
         List<String> cmd = new ArrayList<>();
         cmd.add(Path.of(System.getProperty("java.home"), "bin", "java").toString());
         cmd.addAll(jvmOptions);
         cmd.add("-cp");
         // Surefire names the real test class path here; java.class.path may be its one-jar launcher.
         cmd.add(System.getProperty("surefire.test.class.path", System.getProperty("java.class.path")));
-        cmd.add("org.winnow.app.cli.WinnowCli");
+        cmd.add(mainClass);
         cmd.addAll(args);
         return new ProcessBuilder(cmd).redirectErrorStream(true).redirectOutput(log.toFile());
     }
