@@ -8,7 +8,6 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.SplittableRandom;
-import java.util.concurrent.TimeUnit;
 import java.util.function.LongSupplier;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -39,9 +38,13 @@ import org.winnow.producer.source.InputFileSource;
  * <p>The run is created first, as {@code winnow produce} would create it, and the producer starts once the
  * scorers and the sink have joined: otherwise, on a loaded machine, the producer is done before the other
  * JVMs are up, and the faults would land on a run that is only draining.
+ *
+ * <p>Each wait is bounded for an idle machine and stretched by its load ({@link LoadSlack}): at a load of 20
+ * on two cores the fixed 90 s for the stages to join once failed a correct run.
  */
 @KafkaBroker
-@Timeout(300)
+// Only a guard against a hung test: the waits inside are bounded, stretched by the machine's load (LoadSlack).
+@Timeout(1800)
 class StageKillTest {
     private static final long SEED = 20261202L;
     /** Faults of the kill run, in this order, each at a random point; a victim that has ended is skipped. */
@@ -92,10 +95,11 @@ class StageKillTest {
                 };
                 landed += ClusterFixtures.killAtRandomPoint(victim, chunks, 1 + random.nextInt(5), "chunk", log);
             }
-            assertEquals(0, stages.producer.await(120), () -> "producer exit code; " + log + "\n"
+            assertEquals(0, stages.producer.await(LoadSlack.seconds(120)), () -> "producer exit code; " + log + "\n"
                     + stages.producer.output());
             log.add("producer done");
-            assertEquals(0, stages.sink.await(150), () -> "sink exit code; " + log + "\n" + stages.sink.output());
+            assertEquals(0, stages.sink.await(LoadSlack.seconds(150)), () -> "sink exit code; " + log + "\n"
+                    + stages.sink.output());
             log.add("sink done");
             stages.stopScorers(log);
 
@@ -139,9 +143,9 @@ class StageKillTest {
                 restarts++;
                 stages.restartWhatStopped(log);
             }
-            long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(150);
+            LoadSlack wait = LoadSlack.of(150);
             while (stages.sink.exitCode() == null || stages.sink.exitCode() != 0) {
-                assertTrue(System.nanoTime() < deadline, () -> "the run did not complete: " + log + "\n"
+                assertTrue(wait.within(), () -> "the run did not complete (" + wait.describe() + "): " + log + "\n"
                         + stages.sink.output());
                 if (stages.producer.exitCode() != null && log.count("producer done") == 0) {
                     log.add("producer done");
@@ -221,10 +225,10 @@ class StageKillTest {
          * once the scorers' claims are on the run): from then on no stage needs the broker to start.
          */
         private void awaitJoined(Path out, FaultLog log) throws InterruptedException {
-            long deadline = System.nanoTime() + TimeUnit.SECONDS.toNanos(90);
+            LoadSlack wait = LoadSlack.of(90);
             while (!(scorers.stream().allMatch(s -> s.output().contains("joined run"))
                     && java.nio.file.Files.exists(out.resolve(org.winnow.sink.ScanFiles.MANIFEST)))) {
-                assertTrue(System.nanoTime() < deadline, () -> "the stages did not join: " + log);
+                assertTrue(wait.within(), () -> "the stages did not join (" + wait.describe() + "): " + log);
                 Thread.sleep(50);
             }
             log.add("all stages joined");
@@ -236,7 +240,7 @@ class StageKillTest {
          */
         void stopScorers(FaultLog log) throws InterruptedException {
             for (Child s : scorers) {
-                int exit = s.stop(30);
+                int exit = s.stop(LoadSlack.seconds(30));
                 String last = s.output().strip().lines().reduce((a, b) -> b).orElse("");
                 assertTrue((exit == 0 || exit == 143) && last.contains("stopped after"),
                         () -> s.name() + " did not stop cleanly (exit " + exit + "); " + log + "\n" + s.output());
