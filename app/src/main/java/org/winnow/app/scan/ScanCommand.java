@@ -237,6 +237,15 @@ public final class ScanCommand implements Callable<Integer> {
             throw new StartupException("--model " + model + ": " + (msg.startsWith(model.toString()) ? msg.substring(
                     model.toString().length()).replaceFirst("^:\\s*", "") : msg));
         }
+        if (enumerated != null && enumerated.bounds().dim() != scoring.dimension()) {
+            // Every candidate would be outside what the model knows: each would carry a made-up h11 with the
+            // model's confidence, and no predicted rule could act. Refused rather than run for hours.
+            throw new StartupException("--model " + model + ": its reference set is of dimension "
+                    + scoring.dimension() + ", but the bounds ask for dimension " + enumerated.bounds().dim()
+                    + "; its predictions mean nothing there. Give a model trained on dimension-"
+                    + enumerated.bounds().dim() + " rows (winnow label, then winnow train), or --dim "
+                    + scoring.dimension());
+        }
         int workers = threads != null ? threads : Runtime.getRuntime().availableProcessors();
         return new ScanJob.Settings(source, input, enumerated, scoring, rules, out,
                 new SinkOptions(linesPerFile, rejects),
