@@ -32,8 +32,8 @@ import picocli.CommandLine.Spec;
 @Command(name = "sample", mixinStandardHelpOptions = true,
         description = {
             "Write a seeded, stratified fraction of the exact rows of a reference file.",
-            "Each h11 class gives its fraction, at least --min-per-class where the class has them;",
-            "products are left out unless --products."})
+            "Each h11 class gives its fraction, at least --min-per-class where the class has them; products are "
+                    + "left out unless --products."})
 public final class SampleCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;

@@ -29,8 +29,8 @@ import picocli.CommandLine.Spec;
 /** {@code winnow train}: trains the similarity model on a reference file and freezes it. */
 @Command(name = "train", mixinStandardHelpOptions = true,
         description = {"Train the similarity model on the exact rows of a reference file and write a frozen model.",
-            "With --labelled-fraction f < 1 only a stratified fraction is used for training and the",
-            "rest is evaluated at the end (the summary is stored in the model)."})
+            "With --labelled-fraction f < 1 only a stratified fraction is used for training and the rest is "
+                    + "evaluated at the end (the summary is stored in the model)."})
 public final class TrainCommand implements Callable<Integer> {
     @Spec
     CommandSpec spec;
@@ -115,6 +115,11 @@ public final class TrainCommand implements Callable<Integer> {
         List<LabelledExample> heldOut = new ArrayList<>();
         for (LabelledExample e : loaded.examples()) {
             (holdoutClass != null && e.h11() == holdoutClass ? heldOut : pool).add(e);
+        }
+        if (holdoutClass != null && heldOut.isEmpty()) {
+            // Nothing to measure novelty on: the run would look like a held-out test and hold out nothing.
+            return Exit.badInput(err, "train", "--holdout-class h11=" + holdoutClass + ": " + reference
+                    + " has no exact row of that class to hold out");
         }
         if (pool.isEmpty()) {
             return Exit.badInput(err, "train", reference + ": no exact rows left to train on");

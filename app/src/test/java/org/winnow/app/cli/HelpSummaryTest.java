@@ -47,6 +47,26 @@ class HelpSummaryTest {
         }
     }
 
+    /**
+     * picocli wraps each description line on its own, so a sentence spread by hand over two lines shows as a
+     * stub line in the middle ("... used for training" / "and the" / "rest is evaluated"); every line of a
+     * command's description must end a sentence.
+     */
+    @Test
+    void everyDescriptionLineOfEveryCommandEndsASentence() {
+        List<String> bad = new ArrayList<>();
+        for (Map.Entry<String, CommandLine> e : WinnowCli.commandLine().getSubcommands().entrySet()) {
+            for (String line : e.getValue().getCommandSpec().usageMessage().description()) {
+                // picocli's own help command ends its line with a format newline.
+                String s = line.replace("%n", "").strip();
+                if (!(s.endsWith(".") || s.endsWith(":") || s.endsWith(".)")) || s.endsWith("e.g.")) {
+                    bad.add(e.getKey() + ": '" + s + "'");
+                }
+            }
+        }
+        assertTrue(bad.isEmpty(), "description lines that stop mid-sentence: " + bad);
+    }
+
     static boolean isWholeSentence(String s) {
         if (s.length() < 10 || !Character.isUpperCase(s.charAt(0)) || !s.endsWith(".")) {
             return false;

@@ -97,7 +97,8 @@ class ModelCommandsTest {
         Files.writeString(bad, "config\th11\th21\tstatus\tsource\n4:5\tone\t101\texact\tcomputed\n");
         Run r = run("train", "--reference", bad.toString(), "--out", dir.resolve("x.wnm").toString());
         assertEquals(2, r.code());
-        assertEquals("winnow train: " + bad + ": line 2: h11 of an exact row must be an integer, got 'one'",
+        assertEquals("winnow train: " + bad + ": line 2: h11 of an exact row must be a whole number of ASCII digits "
+                + "below 2^31, got 'one'",
                 r.err().strip());
         Path junk = dir.resolve("junk.wnm");
         Files.writeString(junk, "hello");

@@ -62,4 +62,19 @@ class ReferenceFileRefusalTest {
         Files.writeString(fourfolds, "config\th11\th21\tstatus\tsource\n5:6\t1\t0\texact\tcomputed\n");
         refused(command, fourfolds, dir, "line 2: 5:6 has dimension 4, but the header has no h31 h22 columns");
     }
+
+    /** A held-out class the file does not have once trained "holding out 0" and exit 0: nothing to measure on. */
+    @org.junit.jupiter.api.Test
+    void aHoldoutClassTheFileDoesNotHaveIsRefused(@TempDir Path dir) throws Exception {
+        Path ref = dir.resolve("r.tsv");
+        // Hodge numbers of the quintic and of 2:3/2:3, from memory.
+        Files.writeString(ref, "config\th11\th21\tstatus\tsource\n4:5\t1\t101\texact\tcomputed\n"
+                + "2:3/2:3\t2\t83\texact\tcomputed\n");
+        StringWriter err = new StringWriter();
+        assertEquals(Exit.BAD_INPUT, run(err, "train", "--reference", ref.toString(), "--epochs", "1", "--out",
+                dir.resolve("m.wnm").toString(), "--holdout-class", "h11=999"));
+        assertEquals("winnow train: --holdout-class h11=999: " + ref + " has no exact row of that class to hold out",
+                err.toString().strip());
+        assertFalse(Files.exists(dir.resolve("m.wnm")));
+    }
 }
