@@ -19,14 +19,17 @@ import org.winnow.app.cli.WinnowCli;
 import org.winnow.pipeline.BadInputException;
 import org.winnow.pipeline.BadInputPolicy;
 import org.winnow.pipeline.CandidateSource;
+import org.winnow.pipeline.Keepable;
 import org.winnow.pipeline.KeyLimitException;
 import org.winnow.pipeline.SeenKeys;
 import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.local.PipelineException;
+import org.winnow.producer.Bounds;
 import org.winnow.producer.source.EnumeratedSpace;
 import org.winnow.producer.source.EnumerationSource;
 import org.winnow.producer.source.InputFileSource;
 import org.winnow.scorer.rules.KeepRules;
+import org.winnow.scorer.rules.RangeRule;
 import org.winnow.scorer.rules.RuleException;
 import org.winnow.scorer.rules.RulesFile;
 import org.winnow.scorer.stage.ModelScoring;
@@ -246,11 +249,43 @@ public final class ScanCommand implements Callable<Integer> {
                     + enumerated.bounds().dim() + " rows (winnow label, then winnow train), or --dim "
                     + scoring.dimension());
         }
+        String pointless = pointlessRule(rules, enumerated, scoring.dimension());
+        if (pointless != null) {
+            throw new StartupException(pointless);
+        }
         int workers = threads != null ? threads : Runtime.getRuntime().availableProcessors();
         return new ScanJob.Settings(source, input, enumerated, scoring, rules, out,
                 new SinkOptions(linesPerFile, rejects),
                 new LocalPipeline.Options(workers, queue, Math.max(8 * queue, 64)),
                 strict ? BadInputPolicy.FAIL : BadInputPolicy.SKIP);
+    }
+
+    /**
+     * A range that cannot do what it says for this scan, or null: a predicted invariant the model never gives
+     * for its own dimension (h21 exists from three-folds on, h31 and h22 on four-folds), so the rule would keep
+     * everything as undecided; or, from bounds, an exact range that no candidate of the bounds meets, so the
+     * scan would reject everything. Both once ran to the end with exit 0.
+     */
+    static String pointlessRule(KeepRules rules, EnumeratedSpace enumerated, int modelDim) {
+        for (RangeRule r : rules.ranges()) {
+            Keepable k = r.invariant();
+            int firstDim = k == Keepable.H21 ? 3 : k == Keepable.H31 || k == Keepable.H22 ? 4 : 1;
+            if (!k.exact() && modelDim < firstDim) {
+                return "rule '" + r + "': the model is of dimension " + modelDim + " and predicts no " + k.label()
+                        + " (it exists from dimension " + firstDim + " on), so the rule could never act";
+            }
+            if (enumerated == null || !k.exact()) {
+                continue;
+            }
+            Bounds b = enumerated.bounds();
+            long lo = k == Keepable.DIM ? b.dim() : k == Keepable.ROWS ? b.minRows() : k == Keepable.COLS ? 1 : 0;
+            long hi = k == Keepable.DIM ? b.dim() : k == Keepable.ROWS ? b.maxRows() : k == Keepable.COLS ? b.maxCols() : -1;
+            if (hi >= lo && (r.hi() < lo || r.lo() > hi)) {
+                return "rule '" + r + "': every candidate of the bounds has " + k.label() + " in " + lo
+                        + (hi > lo ? ".." + hi : "") + ", so the scan would reject them all";
+            }
+        }
+        return null;
     }
 
     private KeepRules rules() throws StartupException {

@@ -43,4 +43,39 @@ class FourfoldUserTest {
                 + "label, then winnow train), or --dim 3\n", r.err());
         assertFalse(Files.exists(out), "nothing written");
     }
+
+    /**
+     * Rules that cannot act in the scan they are given to once ran to the end with exit 0: {@code --keep h31=...}
+     * with a model of three-folds kept everything as undecided, and {@code --keep dim=3} or {@code --keep rows=20..}
+     * on bounds that hold no such candidate rejected everything. Each is refused in one line naming the rule.
+     */
+    @Test
+    void rulesThatCannotActForTheDimensionOrTheBoundsAreRefused(@TempDir Path dir) throws Exception {
+        Path model = ScanFixtures.saveModel(dir);
+        String[][] cases = {
+            {"--keep", "h31=100..500", "rule 'h31=100..500': the model is of dimension 3 and predicts no h31 (it exists "
+                + "from dimension 4 on), so the rule could never act"},
+            {"--keep", "h22=..900", "rule 'h22=..900': the model is of dimension 3 and predicts no h22 (it exists from "
+                + "dimension 4 on), so the rule could never act"},
+            {"--keep", "dim=2", "rule 'dim=2': every candidate of the bounds has dim in 3, so the scan would reject them "
+                + "all"},
+            {"--keep", "rows=7..", "rule 'rows=7..': every candidate of the bounds has rows in 1..3, so the scan would "
+                + "reject them all"},
+            {"--keep", "cols=30..", "rule 'cols=30..': every candidate of the bounds has cols in 1..24, so the scan "
+                + "would reject them all"},
+        };
+        for (String[] c : cases) {
+            Path out = dir.resolve("scan");
+            Run r = winnow("scan", "--dim", "3", "--max-rows", "3", "--model", model.toString(), "--out", out.toString(),
+                    c[0], c[1]);
+            assertEquals(Exit.BAD_INPUT, r.exit(), c[1] + ": " + r.err());
+            assertEquals("winnow scan: " + c[2] + "\n", r.err());
+            assertFalse(Files.exists(out), "nothing written");
+        }
+        // The same exact rules on an input file may meet candidates of any shape: not refused there.
+        Path input = Files.writeString(dir.resolve("in.txt"), "4:5\n");
+        Run r = winnow("scan", "--input", input.toString(), "--model", model.toString(), "--out",
+                dir.resolve("s").toString(), "--keep", "rows=7..");
+        assertEquals(0, r.exit(), r.err());
+    }
 }
