@@ -90,6 +90,11 @@ public final class EvaluateCommand implements Callable<Integer> {
         if (test.isEmpty()) {
             return Exit.badInput(err, "evaluate", reference + ": every exact row is in the model's reference set; nothing to evaluate");
         }
+        if (holdoutClass != null && test.stream().noneMatch(e -> e.h11() == holdoutClass)) {
+            // The novelty AUROC would be n/a with exit 0, as if measured.
+            return Exit.badInput(err, "evaluate", "--holdout-class h11=" + holdoutClass + ": " + reference
+                    + " has no exact row of that class to measure novelty on");
+        }
         if (test.get(0).config().dimension() != model.dimension()) {
             return Exit.badInput(err, "evaluate", reference + ": dimension " + test.get(0).config().dimension() + " but the model is for "
                     + model.dimension());

@@ -76,5 +76,15 @@ class ReferenceFileRefusalTest {
         assertEquals("winnow train: --holdout-class h11=999: " + ref + " has no exact row of that class to hold out",
                 err.toString().strip());
         assertFalse(Files.exists(dir.resolve("m.wnm")));
+        // evaluate likewise: the novelty AUROC was n/a with exit 0, as if measured.
+        Path more = dir.resolve("more.tsv");
+        Files.writeString(more, Files.readString(ref) + "3:4/1:2\t2\t86\texact\tcomputed\n");
+        assertEquals(0, run(new StringWriter(), "train", "--reference", ref.toString(), "--epochs", "1", "--out",
+                dir.resolve("m.wnm").toString()));
+        err = new StringWriter();
+        assertEquals(Exit.BAD_INPUT, run(err, "evaluate", "--model", dir.resolve("m.wnm").toString(), "--reference",
+                more.toString(), "--holdout-class", "h11=999"));
+        assertEquals("winnow evaluate: --holdout-class h11=999: " + more + " has no exact row of that class to measure "
+                + "novelty on", err.toString().strip());
     }
 }
