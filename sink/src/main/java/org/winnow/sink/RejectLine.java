@@ -24,18 +24,28 @@ public record RejectLine(String config, long chi, PredictedValue h11Value, Predi
                 + '\t' + SurvivorLine.fraction(s.novelty()) + '\t' + s.reason().code();
     }
 
-    /** Parses a data line of format 2 or 1. */
+    /** Parses a data line of format 2 or 1, as strictly as {@link SurvivorLine#parse}. */
     public static RejectLine parse(String line) {
-        String[] f = line.split("\t", -1);
-        if (f.length == 7) {
-            double c = Double.parseDouble(f[3]);
-            return new RejectLine(f[0], Long.parseLong(f[1]), SurvivorLine.old(f[2], c),
-                    f[4].equals(SurvivorLine.UNDETERMINED) ? null : SurvivorLine.old(f[4], c), null, null,
-                    Double.parseDouble(f[5]), rejectReason(f[6]));
+        try {
+            String[] f = line.split("\t", -1);
+            RejectLine r;
+            if (f.length == 7) {
+                double c = LineFields.share(f[3], "h11_confidence");
+                r = new RejectLine(f[0], LineFields.integer(f[1], "chi"), SurvivorLine.old(f[2], c),
+                        f[4].equals(SurvivorLine.UNDETERMINED) ? null : SurvivorLine.old(f[4], c), null, null,
+                        LineFields.share(f[5], "novelty"), rejectReason(f[6]));
+            } else {
+                Checks.requireArgument(f.length == 16, "a reject line has 16 fields (7 in format 1), found %d", f.length);
+                r = new RejectLine(f[0], LineFields.integer(f[1], "chi"), SurvivorLine.parseValue(f, 2),
+                        SurvivorLine.parseValue(f, 5), SurvivorLine.parseValue(f, 8), SurvivorLine.parseValue(f, 11),
+                        LineFields.share(f[14], "novelty"), rejectReason(f[15]));
+            }
+            SurvivorLine.requireInts(r.h11Value(), r.h21Value(), r.h31Value(), r.h22Value());
+            return r;
+        } catch (IllegalArgumentException | ArithmeticException e) {
+            throw new IllegalArgumentException(e instanceof ArithmeticException ? "a Hodge value beyond 2^31 - 1"
+                    : LineFields.brief(e.getMessage()), e);
         }
-        Checks.requireArgument(f.length == 16, "a reject line has 16 fields (7 in format 1), found %d: %s", f.length, line);
-        return new RejectLine(f[0], Long.parseLong(f[1]), SurvivorLine.parseValue(f, 2), SurvivorLine.parseValue(f, 5),
-                SurvivorLine.parseValue(f, 8), SurvivorLine.parseValue(f, 11), Double.parseDouble(f[14]), rejectReason(f[15]));
     }
 
     private static Reason rejectReason(String code) {

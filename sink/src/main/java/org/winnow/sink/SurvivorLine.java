@@ -55,18 +55,44 @@ public record SurvivorLine(String config, long chi, PredictedValue h11Value, Pre
         return v.value() + "\t" + v.describeBasis() + '\t' + fraction(v.confidence());
     }
 
-    /** Parses a data line of format 2 or 1; {@link IllegalArgumentException} naming the problem otherwise. */
+    /**
+     * Parses a data line of format 2 or 1; {@link IllegalArgumentException} naming the problem in one short line
+     * otherwise. Numbers are ASCII digits, novelty and confidences decimals in [0, 1], h11 fits an int.
+     */
     public static SurvivorLine parse(String line) {
-        String[] f = line.split("\t", -1);
-        if (f.length == 8) {
-            Reason r = keepReason(f[6]);
-            double c = Double.parseDouble(f[3]);
-            return new SurvivorLine(f[0], Long.parseLong(f[1]), old(f[2], c), f[4].equals(UNDETERMINED) ? null : old(f[4], c),
-                    null, null, Double.parseDouble(f[5]), r, f[7].equals(UNDETERMINED) ? "" : f[7]);
+        try {
+            String[] f = line.split("\t", -1);
+            if (f.length == 8) {
+                Reason r = keepReason(f[6]);
+                double c = LineFields.share(f[3], "h11_confidence");
+                return checked(new SurvivorLine(f[0], LineFields.integer(f[1], "chi"), old(f[2], c),
+                        f[4].equals(UNDETERMINED) ? null : old(f[4], c), null, null, LineFields.share(f[5], "novelty"), r,
+                        f[7].equals(UNDETERMINED) ? "" : f[7]));
+            }
+            Checks.requireArgument(f.length == 17, "a survivor line has 17 fields (8 in format 1), found %d", f.length);
+            return checked(new SurvivorLine(f[0], LineFields.integer(f[1], "chi"), parseValue(f, 2), parseValue(f, 5),
+                    parseValue(f, 8), parseValue(f, 11), LineFields.share(f[14], "novelty"), keepReason(f[15]),
+                    f[16].equals(UNDETERMINED) ? "" : f[16]));
+        } catch (IllegalArgumentException | ArithmeticException e) {
+            throw new IllegalArgumentException(e instanceof ArithmeticException ? "a Hodge value beyond 2^31 - 1"
+                    : LineFields.brief(e.getMessage()), e);
         }
-        Checks.requireArgument(f.length == 17, "a survivor line has 17 fields (8 in format 1), found %d: %s", f.length, line);
-        return new SurvivorLine(f[0], Long.parseLong(f[1]), parseValue(f, 2), parseValue(f, 5), parseValue(f, 8),
-                parseValue(f, 11), Double.parseDouble(f[14]), keepReason(f[15]), f[16].equals(UNDETERMINED) ? "" : f[16]);
+    }
+
+    private static SurvivorLine checked(SurvivorLine s) {
+        requireInts(s.h11Value(), s.h21Value(), s.h31Value(), s.h22Value());
+        return s;
+    }
+
+    /** h11 given, and every given value (readers take them as ints) within an int. */
+    static void requireInts(PredictedValue h11, PredictedValue... others) {
+        Checks.requireArgument(h11 != null, "h11 must be given");
+        Math.toIntExact(h11.value());
+        for (PredictedValue v : others) {
+            if (v != null) {
+                Math.toIntExact(v.value());
+            }
+        }
     }
 
     private static Reason keepReason(String code) {
@@ -77,7 +103,8 @@ public record SurvivorLine(String config, long chi, PredictedValue h11Value, Pre
 
     /** A format-1 value: nothing said how it was known, so it reads as estimated. */
     static PredictedValue old(String value, double confidence) {
-        return new PredictedValue(Long.parseLong(value), Basis.ESTIMATED, 0, Long.MAX_VALUE, Math.min(confidence, Math.nextDown(1.0)));
+        return new PredictedValue(LineFields.integer(value, "a value"), Basis.ESTIMATED, 0, Long.MAX_VALUE,
+                Math.min(confidence, Math.nextDown(1.0)));
     }
 
     /** The value at columns {@code at..at+2}, or null when undetermined. */
@@ -85,7 +112,17 @@ public record SurvivorLine(String config, long chi, PredictedValue h11Value, Pre
         if (f[at].equals(UNDETERMINED)) {
             return null;
         }
-        return PredictedValue.parse(f[at], f[at + 1], f[at + 2]);
+        LineFields.integer(f[at], "a value");
+        double c = LineFields.share(f[at + 2], "a confidence");
+        String b = f[at + 1];
+        if (b.startsWith("bounded ")) {
+            int dots = b.indexOf("..");
+            if (dots > 0) {
+                LineFields.integer(b.substring("bounded ".length(), dots), "a bound");
+                LineFields.integer(b.substring(dots + 2), "a bound");
+            }
+        }
+        return PredictedValue.parse(f[at], b, Double.toString(c));
     }
 
     /** Six decimals: finer than any vote share or p-value of a practical reference set. */
