@@ -21,8 +21,8 @@ import org.junit.jupiter.api.io.TempDir;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.scorer.model.Evaluation;
 import org.winnow.scorer.model.FrozenModel;
-import org.winnow.scorer.model.LabelledExample;
-import org.winnow.scorer.model.ReferenceTsv;
+import org.winnow.scorer.reference.LabelledExample;
+import org.winnow.scorer.reference.ReferenceTsv;
 
 /**
  * Seeded fuzzing of the {@code evaluation.json} reader behind {@code winnow report}: a real evaluation of the

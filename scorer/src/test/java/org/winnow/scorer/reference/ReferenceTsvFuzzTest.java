@@ -1,4 +1,4 @@
-package org.winnow.scorer.model;
+package org.winnow.scorer.reference;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertThrows;
