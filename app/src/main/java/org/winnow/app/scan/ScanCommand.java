@@ -263,13 +263,21 @@ public final class ScanCommand implements Callable<Integer> {
     /**
      * A range that cannot do what it says for this scan, or null: a predicted invariant the model never gives
      * for its own dimension (h21 exists from three-folds on, h31 and h22 on four-folds), so the rule would keep
-     * everything as undecided; or, from bounds, an exact range that no candidate of the bounds meets, so the
-     * scan would reject everything. Both once ran to the end with exit 0.
+     * everything as undecided; a range wholly below what the invariant can be; or, from bounds, an exact range
+     * that no candidate of the bounds meets, so the scan would reject everything. All once ran to the end with
+     * exit 0.
      */
     static String pointlessRule(KeepRules rules, EnumeratedSpace enumerated, int modelDim) {
         for (RangeRule r : rules.ranges()) {
             Keepable k = r.invariant();
             int firstDim = k == Keepable.H21 ? 3 : k == Keepable.H31 || k == Keepable.H22 ? 4 : 1;
+            // h11 of a Calabi-Yau is at least 1 (a Kahler class), the other Hodge numbers at least 0; every
+            // matrix has a row, a column, a dimension and a block.
+            long least = k == Keepable.H21 || k == Keepable.H31 || k == Keepable.H22 ? 0 : 1;
+            if (k != Keepable.CHI && r.hi() < least) {
+                return "rule '" + r + "': " + k.label() + " is never below " + least + ", so the rule would reject "
+                        + "every candidate";
+            }
             if (!k.exact() && modelDim < firstDim) {
                 return "rule '" + r + "': the model is of dimension " + modelDim + " and predicts no " + k.label()
                         + " (it exists from dimension " + firstDim + " on), so the rule could never act";

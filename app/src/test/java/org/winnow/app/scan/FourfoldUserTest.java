@@ -57,6 +57,9 @@ class FourfoldUserTest {
                 + "from dimension 4 on), so the rule could never act"},
             {"--keep", "h22=..900", "rule 'h22=..900': the model is of dimension 3 and predicts no h22 (it exists from "
                 + "dimension 4 on), so the rule could never act"},
+            {"--keep", "h21=-5..-1", "rule 'h21=-5..-1': h21 is never below 0, so the rule would reject every "
+                + "candidate"},
+            {"--keep", "h11=0", "rule 'h11=0': h11 is never below 1, so the rule would reject every candidate"},
             {"--keep", "dim=2", "rule 'dim=2': every candidate of the bounds has dim in 3, so the scan would reject them "
                 + "all"},
             {"--keep", "rows=7..", "rule 'rows=7..': every candidate of the bounds has rows in 1..3, so the scan would "
