@@ -241,15 +241,15 @@ public final class ScanCommand implements Callable<Integer> {
                     model.toString().length()).replaceFirst("^:\\s*", "") : msg));
         }
         if (enumerated != null && enumerated.bounds().dim() != scoring.dimension()) {
-            // Every candidate would be outside what the model knows: each would carry a made-up h11 with the
-            // model's confidence, and no predicted rule could act. Refused rather than run for hours.
-            throw new StartupException("--model " + model + ": its reference set is of dimension "
-                    + scoring.dimension() + ", but the bounds ask for dimension " + enumerated.bounds().dim()
-                    + "; its predictions mean nothing there. Give a model trained on dimension-"
-                    + enumerated.bounds().dim() + " rows (winnow label, then winnow train), or --dim "
-                    + scoring.dimension());
+            // The model's neighbours do not vote on another dimension (novelty 1, confidence 0); the proved and
+            // bounded values still hold. Said once, so that nobody reads the survivors as the model's opinion.
+            PrintWriter err = spec.commandLine().getErr();
+            err.println("winnow scan: note: --model " + model + " is of dimension " + scoring.dimension()
+                    + " and the bounds of dimension " + enumerated.bounds().dim() + ": only proved and bounded values "
+                    + "can reject, every other candidate is kept as novel");
+            err.flush();
         }
-        String pointless = pointlessRule(rules, enumerated, scoring.dimension());
+        String pointless = pointlessRule(rules, enumerated);
         if (pointless != null) {
             throw new StartupException(pointless);
         }
@@ -261,16 +261,15 @@ public final class ScanCommand implements Callable<Integer> {
     }
 
     /**
-     * A range that cannot do what it says for this scan, or null: a predicted invariant the model never gives
-     * for its own dimension (h21 exists from three-folds on, h31 and h22 on four-folds), so the rule would keep
-     * everything as undecided; a range wholly below what the invariant can be; or, from bounds, an exact range
-     * that no candidate of the bounds meets, so the scan would reject everything. All once ran to the end with
-     * exit 0.
+     * A range that cannot do what it says for this scan, or null: a range wholly below what its invariant can
+     * be; or, from bounds, a predicted invariant that no candidate of the bounds has (h21 exists from
+     * three-folds on, h31 and h22 on four-folds), so the rule would keep everything as undecided, or an exact
+     * range that no candidate of the bounds meets, so the scan would reject everything. All once ran to the end
+     * with exit 0. An input file may hold candidates of any shape, so only the first kind is refused there.
      */
-    static String pointlessRule(KeepRules rules, EnumeratedSpace enumerated, int modelDim) {
+    static String pointlessRule(KeepRules rules, EnumeratedSpace enumerated) {
         for (RangeRule r : rules.ranges()) {
             Keepable k = r.invariant();
-            int firstDim = k == Keepable.H21 ? 3 : k == Keepable.H31 || k == Keepable.H22 ? 4 : 1;
             // h11 of a Calabi-Yau is at least 1 (a Kahler class), the other Hodge numbers at least 0; every
             // matrix has a row, a column, a dimension and a block.
             long least = k == Keepable.H21 || k == Keepable.H31 || k == Keepable.H22 ? 0 : 1;
@@ -278,14 +277,18 @@ public final class ScanCommand implements Callable<Integer> {
                 return "rule '" + r + "': " + k.label() + " is never below " + least + ", so the rule would reject "
                         + "every candidate";
             }
-            if (!k.exact() && modelDim < firstDim) {
-                return "rule '" + r + "': the model is of dimension " + modelDim + " and predicts no " + k.label()
-                        + " (it exists from dimension " + firstDim + " on), so the rule could never act";
-            }
-            if (enumerated == null || !k.exact()) {
+            if (enumerated == null) {
                 continue;
             }
             Bounds b = enumerated.bounds();
+            int firstDim = k == Keepable.H21 ? 3 : k == Keepable.H31 || k == Keepable.H22 ? 4 : 1;
+            if (!k.exact() && b.dim() < firstDim) {
+                return "rule '" + r + "': the bounds hold " + b.dim() + "-folds, which have no " + k.label()
+                        + " (it exists from dimension " + firstDim + " on), so the rule could never act";
+            }
+            if (!k.exact()) {
+                continue;
+            }
             long lo = k == Keepable.DIM ? b.dim() : k == Keepable.ROWS ? b.minRows() : k == Keepable.COLS ? 1 : 0;
             long hi = k == Keepable.DIM ? b.dim() : k == Keepable.ROWS ? b.maxRows() : k == Keepable.COLS ? b.maxCols() : -1;
             if (hi >= lo && (r.hi() < lo || r.lo() > hi)) {

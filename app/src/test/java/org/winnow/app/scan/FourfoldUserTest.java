@@ -2,6 +2,7 @@ package org.winnow.app.scan;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.PrintWriter;
 import java.io.StringWriter;
@@ -11,6 +12,8 @@ import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.WinnowCli;
+import org.winnow.sink.Manifest;
+import org.winnow.sink.ScanFiles;
 import picocli.CommandLine;
 
 /** What a new four-fold user ran into, each as a regression. */
@@ -28,34 +31,43 @@ class FourfoldUserTest {
     }
 
     /**
-     * {@code winnow scan --dim 4} with a model of three-folds once ran the whole space: every candidate got the
-     * three-fold model's h11 with confidence 1.000000 and a three-fold as its nearest reference, and exit 0.
-     * Now it is refused before anything is written, in one line that says what to do.
+     * {@code winnow scan --dim 4} with a model of three-folds once gave every four-fold the model's h11 with
+     * confidence 1.000000 and a three-fold as its nearest reference, and predicted rules rejected on it. Now the
+     * model's neighbours do not vote there: the scan says so in one line, and only proved and bounded values
+     * (and exact invariants) reject; nothing is rejected on the three-fold model's word.
      */
     @Test
-    void boundsOfAnotherDimensionThanTheModelAreRefusedInOneLine(@TempDir Path dir) throws Exception {
+    void boundsOfAnotherDimensionThanTheModelRejectOnlyOnProofs(@TempDir Path dir) throws Exception {
         Path model = ScanFixtures.saveModel(dir);
         Path out = dir.resolve("scan");
-        Run r = winnow("scan", "--dim", "4", "--max-rows", "2", "--model", model.toString(), "--out", out.toString());
-        assertEquals(Exit.BAD_INPUT, r.exit(), r.err());
-        assertEquals("winnow scan: --model " + model + ": its reference set is of dimension 3, but the bounds ask for "
-                + "dimension 4; its predictions mean nothing there. Give a model trained on dimension-4 rows (winnow "
-                + "label, then winnow train), or --dim 3\n", r.err());
-        assertFalse(Files.exists(out), "nothing written");
+        Run r = winnow("scan", "--dim", "4", "--max-rows", "2", "--model", model.toString(), "--out", out.toString(),
+                "--keep", "h11=2..3", "--keep", "h31=100..300");
+        assertEquals(0, r.exit(), r.err());
+        assertTrue(r.err().startsWith("winnow scan: note: --model " + model + " is of dimension 3 and the bounds of "
+                + "dimension 4: only proved and bounded values can reject, every other candidate is kept as novel\n"),
+                r.err());
+        Manifest m = Manifest.read(out.resolve(ScanFiles.MANIFEST));
+        long rejected = 0;
+        for (var e : m.counts().rejectedByReason().entrySet()) {
+            assertTrue(e.getValue() == 0 || !e.getKey().startsWith("predicted-"), "rejected on the model's word: " + e);
+            rejected += e.getValue();
+        }
+        assertTrue(rejected > 0 && m.counts().kept() > 0, "both verdicts occur: " + m.counts());
     }
 
     /**
      * Rules that cannot act in the scan they are given to once ran to the end with exit 0: {@code --keep h31=...}
-     * with a model of three-folds kept everything as undecided, and {@code --keep dim=3} or {@code --keep rows=20..}
-     * on bounds that hold no such candidate rejected everything. Each is refused in one line naming the rule.
+     * on three-fold bounds kept everything as undecided, {@code --keep h21=-5..-1} and, on bounds that hold no
+     * such candidate, {@code --keep dim=3} or {@code --keep rows=20..} rejected everything. Each is refused in
+     * one line naming the rule.
      */
     @Test
     void rulesThatCannotActForTheDimensionOrTheBoundsAreRefused(@TempDir Path dir) throws Exception {
         Path model = ScanFixtures.saveModel(dir);
         String[][] cases = {
-            {"--keep", "h31=100..500", "rule 'h31=100..500': the model is of dimension 3 and predicts no h31 (it exists "
+            {"--keep", "h31=100..500", "rule 'h31=100..500': the bounds hold 3-folds, which have no h31 (it exists "
                 + "from dimension 4 on), so the rule could never act"},
-            {"--keep", "h22=..900", "rule 'h22=..900': the model is of dimension 3 and predicts no h22 (it exists from "
+            {"--keep", "h22=..900", "rule 'h22=..900': the bounds hold 3-folds, which have no h22 (it exists from "
                 + "dimension 4 on), so the rule could never act"},
             {"--keep", "h21=-5..-1", "rule 'h21=-5..-1': h21 is never below 0, so the rule would reject every "
                 + "candidate"},
@@ -75,10 +87,10 @@ class FourfoldUserTest {
             assertEquals("winnow scan: " + c[2] + "\n", r.err());
             assertFalse(Files.exists(out), "nothing written");
         }
-        // The same exact rules on an input file may meet candidates of any shape: not refused there.
-        Path input = Files.writeString(dir.resolve("in.txt"), "4:5\n");
+        // An input file may hold candidates of any shape (here a four-fold, whose h31 is proved): not refused there.
+        Path input = Files.writeString(dir.resolve("in.txt"), "4:5\n5:6\n");
         Run r = winnow("scan", "--input", input.toString(), "--model", model.toString(), "--out",
-                dir.resolve("s").toString(), "--keep", "rows=7..");
+                dir.resolve("s").toString(), "--keep", "rows=7..", "--keep", "h31=100..300");
         assertEquals(0, r.exit(), r.err());
     }
 }
