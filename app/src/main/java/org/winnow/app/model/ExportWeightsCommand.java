@@ -9,6 +9,7 @@ import java.nio.file.Path;
 import java.nio.file.StandardCopyOption;
 import java.util.concurrent.Callable;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.OutputPaths;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.scorer.model.FrozenModel;
 import picocli.CommandLine.Command;
@@ -38,6 +39,10 @@ public final class ExportWeightsCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         PrintWriter err = spec.commandLine().getErr();
+        String same = OutputPaths.sameFileProblem(out, "--out", model, "--model");
+        if (same != null) {
+            return Exit.badInput(err, "export-weights", same);
+        }
         FrozenModel m;
         try {
             m = FrozenModel.load(model);

@@ -12,6 +12,7 @@ import java.util.Locale;
 import java.util.Set;
 import java.util.concurrent.Callable;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.OutputPaths;
 import org.winnow.geometry.invariants.InvariantCalculator;
 import org.winnow.scorer.reference.LabelledExample;
 import org.winnow.scorer.reference.ReferenceTsv;
@@ -65,6 +66,10 @@ public final class SampleCommand implements Callable<Integer> {
         }
         if (minPerClass < 0) {
             return Exit.badInput(err, "sample", "--min-per-class must not be negative, got " + minPerClass);
+        }
+        String same = OutputPaths.sameFileProblem(out, "--out", reference, "--reference");
+        if (same != null) {
+            return Exit.badInput(err, "sample", same);
         }
         List<ReferenceTsv.Row> rows;
         try {

@@ -12,6 +12,7 @@ import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.Limits;
+import org.winnow.app.cli.OutputPaths;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.scorer.network.Architecture;
 import org.winnow.scorer.model.Evaluation;
@@ -100,6 +101,10 @@ public final class TrainCommand implements Callable<Integer> {
             }
         } catch (IllegalArgumentException e) {
             return Exit.badInput(err, "train", e.getMessage());
+        }
+        String same = OutputPaths.sameFileProblem(out, "--out", reference, "--reference");
+        if (same != null) {
+            return Exit.badInput(err, "train", same);
         }
         ReferenceLoader.Loaded loaded;
         try {

@@ -9,6 +9,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.winnow.app.cli.CheckedOutput;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.OutputPaths;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.sink.ScanFiles;
 import picocli.CommandLine.Command;
@@ -61,6 +62,10 @@ public final class ReportCommand implements Callable<Integer> {
             return Exit.badInput(err, "report", "--max-map-points " + maxMapPoints + ": must be at least 1");
         }
         Path evaluation = dir.resolve(EvaluationFile.FILE);
+        String inside = OutputPaths.insideRunProblem(out, dir);
+        if (inside != null) {
+            return Exit.badInput(err, "report", inside);
+        }
         if (Files.isRegularFile(evaluation)) {
             if (Files.exists(dir.resolve(ScanFiles.MANIFEST))) {
                 return Exit.badInput(err, "report", dir + ": holds both " + ScanFiles.MANIFEST + " and " + EvaluationFile.FILE
@@ -76,6 +81,10 @@ public final class ReportCommand implements Callable<Integer> {
             scanDir = scanDirectory(dir, err);
         } catch (ScanResult.BadScanDir e) {
             return Exit.badInput(err, "report", e.getMessage());
+        }
+        inside = OutputPaths.insideRunProblem(out, scanDir);
+        if (inside != null) {
+            return Exit.badInput(err, "report", inside);
         }
         ScanResult scan;
         try {
