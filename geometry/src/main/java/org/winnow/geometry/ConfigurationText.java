@@ -9,6 +9,9 @@ import java.util.List;
  * The writer emits no blanks, so the text of a canonical matrix is a byte-exact key.
  */
 public final class ConfigurationText {
+    /** U+FEFF, the byte-order mark some editors put at the start of a UTF-8 file; skipped at a line's start. */
+    public static final String BYTE_ORDER_MARK = "\uFEFF";
+
     private ConfigurationText() {}
 
     /** Parses a single configuration given on line 1. */
@@ -26,6 +29,10 @@ public final class ConfigurationText {
             throw new ConfigurationFormatException(lineNumber, 1, "empty input, expected a configuration such as 4:5");
         }
         Scanner s = new Scanner(text, lineNumber);
+        if (text.startsWith(BYTE_ORDER_MARK)) {
+            // Editors on some systems start a UTF-8 file with this mark; it would cost the file its first line.
+            s.advance();
+        }
         s.skipBlanks();
         if (s.atEnd()) {
             throw s.error("empty input, expected a configuration such as 4:5");

@@ -83,6 +83,9 @@ public final class ReferenceTsv {
         int lineNo = 0;
         while ((raw = in.readLine()) != null) {
             lineNo++;
+            if (lineNo == 1 && raw.startsWith(ConfigurationText.BYTE_ORDER_MARK)) {
+                raw = raw.substring(1);
+            }
             String line = raw.strip();
             if (line.isEmpty() || line.startsWith("#")) {
                 continue;

@@ -11,6 +11,7 @@ import java.util.HashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.OptionalDouble;
+import org.winnow.geometry.ConfigurationText;
 import org.winnow.pipeline.Keepable;
 
 /**
@@ -46,6 +47,10 @@ public final class RulesFile {
         String text = StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPLACE)
                 .onUnmappableCharacter(CodingErrorAction.REPLACE).decode(ByteBuffer.wrap(Files.readAllBytes(file)))
                 .toString();
+        // A byte-order mark from an editor would make the first rule unreadable.
+        if (text.startsWith(ConfigurationText.BYTE_ORDER_MARK)) {
+            text = text.substring(1);
+        }
         return parse(text.lines().toList(), file.toString());
     }
 
