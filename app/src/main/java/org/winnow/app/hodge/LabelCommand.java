@@ -436,7 +436,11 @@ public final class LabelCommand implements Callable<Integer> {
                 raf.setLength(keep);
             }
         }
-        try (BufferedReader reader = Files.newBufferedReader(out, StandardCharsets.UTF_8)) {
+        // Bytes that are not UTF-8 become U+FFFD, so a damaged line is named by its number rather than ending
+        // the run with "Input length = 1" and the advice to rerun, which failed the same way.
+        try (BufferedReader reader = new BufferedReader(new InputStreamReader(Files.newInputStream(out),
+                StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPLACE)
+                        .onUnmappableCharacter(CodingErrorAction.REPLACE)), 1 << 16)) {
             String header = reader.readLine();
             if (header == null) {
                 return null;
@@ -445,12 +449,19 @@ public final class LabelCommand implements Callable<Integer> {
                 throw new IllegalArgumentException(out + " is not a reference file (header '"
                         + Limits.excerpt(header) + "')");
             }
+            int fields = header.split("\t", -1).length;
             String line;
+            int number = 1;
             while ((line = reader.readLine()) != null) {
-                int tab = line.indexOf('\t');
-                if (tab > 0) {
-                    done.add(line.substring(0, tab));
+                number++;
+                int found = line.split("\t", -1).length;
+                if (found != fields || line.indexOf('\uFFFD') >= 0) {
+                    // A row this command did not write whole would be taken as labelled and never redone.
+                    throw new IllegalArgumentException(out + " line " + number + " '" + Limits.excerpt(line)
+                            + "': damaged (" + (found != fields ? found + " tab-separated fields, expected " + fields
+                            : "bytes that are not UTF-8") + "); fix or delete that line, then rerun");
                 }
+                done.add(line.substring(0, line.indexOf('\t')));
             }
             return header.equals(HodgeFormat.HEADER_4);
         }
