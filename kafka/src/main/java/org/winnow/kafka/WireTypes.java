@@ -4,6 +4,7 @@ import org.winnow.geometry.Configuration;
 import org.winnow.pipeline.Candidate;
 import org.winnow.geometry.hodge.Basis;
 import org.winnow.pipeline.PredictedValue;
+import org.winnow.pipeline.Proof;
 import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.ExactInvariants;
 import org.winnow.pipeline.Reason;
@@ -37,6 +38,7 @@ public final class WireTypes {
     public static final int PREDICTION = 128;
     public static final int PREDICTED_VALUE = 129;
     public static final int BASIS = 132;
+    public static final int PROOF = 133;
     public static final int SHARD_PROGRESS = 130;
     public static final int SOURCE_REPORT = 131;
     public static final int METRIC_SNAPSHOT = 140;
@@ -66,6 +68,7 @@ public final class WireTypes {
                 .register(Prediction.class, PREDICTION)
                 .register(PredictedValue.class, PREDICTED_VALUE)
                 .register(Basis.class, BASIS)
+                .register(Proof.class, PROOF)
                 .register(Scored.class, SCORED)
                 .register(Verdict.class, VERDICT)
                 .register(Reason.class, REASON)

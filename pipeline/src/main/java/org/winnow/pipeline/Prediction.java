@@ -16,13 +16,26 @@ import org.winnow.geometry.Checks;
  *                         values derived through them (h21, h31, h22) never reject it
  * @param novelty          calibrated novelty in [0, 1]: near 1 means unlike the reference set
  * @param nearestReference canonical text of the nearest reference configuration, or "" if none
+ * @param proof            what the opt-in proof step did for this candidate
  */
 public record Prediction(PredictedValue h11Value, PredictedValue h21Value, PredictedValue h31Value,
-        PredictedValue h22Value, boolean product, double novelty, String nearestReference) {
+        PredictedValue h22Value, boolean product, double novelty, String nearestReference, Proof proof) {
     public Prediction {
         Objects.requireNonNull(h11Value, "h11Value");
+        Objects.requireNonNull(proof, "proof");
         Checks.requireArgument(novelty >= 0 && novelty <= 1, "novelty must be in [0, 1]: %s", novelty);
         nearestReference = nearestReference == null ? "" : nearestReference;
+    }
+
+    /** A prediction no proof step has looked at. */
+    public Prediction(PredictedValue h11Value, PredictedValue h21Value, PredictedValue h31Value, PredictedValue h22Value,
+            boolean product, double novelty, String nearestReference) {
+        this(h11Value, h21Value, h31Value, h22Value, product, novelty, nearestReference, Proof.NOT_ATTEMPTED);
+    }
+
+    /** This prediction with the proof step's outcome. */
+    public Prediction withProof(Proof outcome) {
+        return new Prediction(h11Value, h21Value, h31Value, h22Value, product, novelty, nearestReference, outcome);
     }
 
     /**

@@ -3,6 +3,7 @@ package org.winnow.sink;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.Map;
+import org.winnow.pipeline.Proof;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Verdict;
 
@@ -18,9 +19,13 @@ import org.winnow.pipeline.Verdict;
  * @param startedAt      when the first session of the scan started
  * @param elapsedSeconds wall time of all earlier sessions up to their last checkpoint
  * @param sessions       how many sessions have committed work to the scan, this one included
+ * @param proofs         what the opt-in proof step did, per outcome code ({@link Proof#code()}); empty when off
  */
 public record Checkpoint(int formatVersion, String runId, long nextSeq, Map<String, Long> counts, PartState survivors,
-        PartState rejects, Instant startedAt, double elapsedSeconds, int sessions) {
+        PartState rejects, Instant startedAt, double elapsedSeconds, int sessions, Map<String, Long> proofs) {
+    public Checkpoint {
+        proofs = proofs == null ? Map.of() : proofs;
+    }
 
     /**
      * Reads {@code checkpoint.json} and checks it: its own checksum, its format version and every field
@@ -57,6 +62,7 @@ public record Checkpoint(int formatVersion, String runId, long nextSeq, Map<Stri
         require(runId != null && runId.matches("[0-9a-zA-Z_-]+"), at + "runId is missing or malformed: " + runId);
         require(nextSeq >= 0, at + "nextSeq must be at least 0, found " + nextSeq);
         require(counts != null, at + "counts is missing");
+        requireProofCounts(proofs, at);
         long all = 0;
         long kept = 0;
         long rejected = 0;
@@ -128,6 +134,22 @@ public record Checkpoint(int formatVersion, String runId, long nextSeq, Map<Stri
     private static void require(boolean ok, String message) throws ScanDamagedException {
         if (!ok) {
             throw new ScanDamagedException(message);
+        }
+    }
+
+    /** Every key a proof outcome's code, every count at least 0. */
+    static void requireProofCounts(Map<String, Long> proofs, String at) throws ScanDamagedException {
+        for (Map.Entry<String, Long> e : proofs.entrySet()) {
+            boolean known = false;
+            for (Proof p : Proof.values()) {
+                known |= p != Proof.NOT_ATTEMPTED && p.code().equals(e.getKey());
+            }
+            if (!known) {
+                throw new ScanDamagedException(at + "proofs names an unknown outcome '" + e.getKey() + "'");
+            }
+            if (e.getValue() == null || e.getValue() < 0) {
+                throw new ScanDamagedException(at + "proofs." + e.getKey() + " must be at least 0, found " + e.getValue());
+            }
         }
     }
 }

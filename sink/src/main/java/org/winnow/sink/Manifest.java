@@ -25,10 +25,18 @@ import org.winnow.pipeline.BadInput;
  *                      {@code rejectFiles}, survivors first; what a reader checks the files against
  * @param modelFile     the model file the scan read (absolute path), or null; its checksum must still be
  *                      {@code modelChecksum} for a reader to use it
+ * @param proofs        what the opt-in proof step did, per outcome code ({@code settled}, {@code unsettled},
+ *                      {@code out-of-time}); empty when it is off. Counted from the records the sink
+ *                      receives, so in a cluster run with slim rejects only the kept candidates' proofs
+ *                      (the scorers' metrics count them all)
  */
 public record Manifest(int formatVersion, String runId, boolean complete, String source, Object bounds,
         List<String> rules, String modelChecksum, Counts counts, List<BadInput> badInputLines, Timings timings,
-        List<String> survivorFiles, List<String> rejectFiles, List<SealedPart> sealedParts, String modelFile) {
+        List<String> survivorFiles, List<String> rejectFiles, List<SealedPart> sealedParts, String modelFile,
+        Map<String, Long> proofs) {
+    public Manifest {
+        proofs = proofs == null ? Map.of() : proofs;
+    }
 
     /**
      * Counts. They reconcile: {@code enumerated = duplicates + candidates}, {@code scored = rejected + kept},
@@ -89,6 +97,7 @@ public record Manifest(int formatVersion, String runId, boolean complete, String
         require(source != null, at + "source is missing");
         require(rules != null && modelChecksum != null, at + "rules or modelChecksum is missing");
         require(counts != null, at + "counts is missing");
+        Checkpoint.requireProofCounts(proofs, at);
         require(counts.rejectedByReason() != null && counts.keptByReason() != null,
                 at + "counts.rejectedByReason or counts.keptByReason is missing");
         require(counts.enumerated() >= 0 && counts.duplicates() >= 0 && counts.candidates() >= 0

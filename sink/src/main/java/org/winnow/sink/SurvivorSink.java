@@ -15,6 +15,7 @@ import java.util.Map;
 import java.util.Objects;
 import java.util.function.Supplier;
 import org.winnow.geometry.Checks;
+import org.winnow.pipeline.Proof;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
 import org.winnow.pipeline.SourceReport;
@@ -40,6 +41,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
     private final Checkpoint start;
     private final Instant sessionStart;
     private final Map<Reason, Long> counts = new EnumMap<>(Reason.class);
+    private final Map<String, Long> proofs = new java.util.TreeMap<>();
     private final PartSeries survivors;
     private final PartSeries rejects;
     private final DirectoryLock lock;
@@ -64,6 +66,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         for (Reason r : Reason.values()) {
             counts.put(r, start.counts().getOrDefault(r.code(), 0L));
         }
+        proofs.putAll(start.proofs());
         String format = "format " + ScanFiles.FORMAT_VERSION + ", run " + info.runId();
         this.survivors = new PartSeries(dir, ScanFiles.SURVIVORS, options.linesPerFile(),
                 p -> "# winnow survivors, " + format + ", part " + p + "\n" + SurvivorLine.COLUMNS + "\n",
@@ -124,7 +127,8 @@ public final class SurvivorSink implements Stage<Scored, Void> {
                 throw new IOException(dir + ": the scan writes rejects; rerun it with the rejects file on");
             }
             start = new Checkpoint(start.formatVersion(), start.runId(), start.nextSeq(), start.counts(),
-                    start.survivors(), start.rejects(), start.startedAt(), start.elapsedSeconds(), start.sessions() + 1);
+                    start.survivors(), start.rejects(), start.startedAt(), start.elapsedSeconds(), start.sessions() + 1,
+                    start.proofs());
         } else {
             try (var entries = Files.list(dir)) {
                 List<String> names = entries.map(p -> p.getFileName().toString())
@@ -135,7 +139,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
                 }
             }
             start = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), 0, Map.of(), PartState.EMPTY, PartState.EMPTY,
-                    clock.instant(), 0, 1);
+                    clock.instant(), 0, 1, Map.of());
         }
         SurvivorSink sink = new SurvivorSink(dir, info, options, clock, source, hook, start, lock);
         if (fresh) {
@@ -165,6 +169,9 @@ public final class SurvivorSink implements Stage<Scored, Void> {
             metrics.survivorLine();
         } else if (options.writeRejects()) {
             rejects.append(RejectLine.format(s));
+        }
+        if (s.prediction().proof() != Proof.NOT_ATTEMPTED) {
+            proofs.merge(s.prediction().proof().code(), 1L, Long::sum);
         }
         count(s.reason());
     }
@@ -254,7 +261,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
         });
         Instant now = clock.instant();
         Checkpoint cp = new Checkpoint(ScanFiles.FORMAT_VERSION, info.runId(), nextSeq, byCode, survivors.state(),
-                rejects.state(), start.startedAt(), elapsed(now), start.sessions());
+                rejects.state(), start.startedAt(), elapsed(now), start.sessions(), new java.util.TreeMap<>(proofs));
         hook.before("checkpoint");
         ScanFiles.replaceAtomically(dir.resolve(ScanFiles.CHECKPOINT), ScanFiles.toSealedJson(cp));
         return now;
@@ -294,7 +301,7 @@ public final class SurvivorSink implements Stage<Scored, Void> {
                 report.badInputLines(),
                 new Manifest.Timings(start.startedAt(), now, elapsed(now), start.sessions(),
                         session > 0 ? scoredThisSession / session : 0),
-                survivors.published(), rejects.published(), sealedParts(), info.modelFile());
+                survivors.published(), rejects.published(), sealedParts(), info.modelFile(), new java.util.TreeMap<>(proofs));
         ScanFiles.replaceAtomically(dir.resolve(ScanFiles.MANIFEST), ScanFiles.toSealedJson(m));
     }
 }

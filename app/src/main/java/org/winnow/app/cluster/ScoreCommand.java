@@ -15,6 +15,7 @@ import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.KafkaConnectionOptions;
 import org.winnow.app.cli.MetricsPortOption;
 import org.winnow.app.cli.ProcessMetrics;
+import org.winnow.app.cli.ProofBudget;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.kafka.ClusterRefusedException;
 import org.winnow.kafka.ExactlyOnceRelay;
@@ -65,6 +66,12 @@ public final class ScoreCommand implements Callable<Integer> {
     @Option(names = "--novelty", paramLabel = "X", description = "As for scan (default 0.99).")
     Double novelty;
 
+    @Option(names = "--prove", paramLabel = "TIME",
+            description = "Opt-in proof step: run the exact Hodge backend for up to TIME (200ms, 2s) on each candidate "
+                    + "whose verdict rests on an unproved value a rule names; off by default. Counts of settled, "
+                    + "unsettled and out-of-time candidates go to the manifest and the metrics.")
+    String prove;
+
     @Option(names = "--instance", paramLabel = "NAME",
             description = "This scorer's name in the group; restart a killed scorer under the same name "
                     + "(default: host name and process id).")
@@ -91,6 +98,11 @@ public final class ScoreCommand implements Callable<Integer> {
             scoring = ModelScoring.load(model);
         } catch (IOException | RuntimeException e) {
             return Exit.badInput(err, "score", "--model " + model + ": " + e.getMessage());
+        }
+        try {
+            scoring = scoring.withProofBudget(ProofBudget.parse(prove), System::nanoTime);
+        } catch (IllegalArgumentException e) {
+            return Exit.badInput(err, "score", e.getMessage());
         }
         String name = instance != null ? instance : defaultInstance();
         AtomicLong scored = new AtomicLong();

@@ -15,6 +15,7 @@ import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.Limits;
 import org.winnow.app.cli.MetricsPortOption;
 import org.winnow.app.cli.ProcessMetrics;
+import org.winnow.app.cli.ProofBudget;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.pipeline.BadInputException;
 import org.winnow.pipeline.BadInputPolicy;
@@ -78,6 +79,12 @@ public final class ScanCommand implements Callable<Integer> {
     @Option(names = "--min-confidence", paramLabel = "X",
             description = "An unproved prediction rejects only with at least this confidence (default 0.85).")
     Double minConfidence;
+
+    @Option(names = "--prove", paramLabel = "TIME",
+            description = "Opt-in proof step: run the exact Hodge backend for up to TIME (200ms, 2s) on each candidate "
+                    + "whose verdict rests on an unproved value a rule names; off by default. Counts of settled, "
+                    + "unsettled and out-of-time candidates go to the manifest and the metrics.")
+    String prove;
 
     @Option(names = "--novelty", paramLabel = "X",
             description = "A prediction rejects only with novelty below this (default 0.99).")
@@ -252,6 +259,11 @@ public final class ScanCommand implements Callable<Integer> {
         String pointless = pointlessRule(rules, enumerated);
         if (pointless != null) {
             throw new StartupException(pointless);
+        }
+        try {
+            scoring = scoring.withProofBudget(ProofBudget.parse(prove), System::nanoTime);
+        } catch (IllegalArgumentException e) {
+            throw new StartupException(e.getMessage());
         }
         int workers = threads != null ? threads : Runtime.getRuntime().availableProcessors();
         return new ScanJob.Settings(source, input, enumerated, scoring, rules, out,

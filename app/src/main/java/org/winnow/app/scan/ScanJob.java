@@ -72,6 +72,9 @@ public final class ScanJob {
         parts.add(s.sourceFile() != null ? "input file" : "enumeration " + (s.space() == null ? null : s.space().key()));
         parts.addAll(s.rules().describe());
         parts.add("model " + s.scoring().modelChecksum());
+        if (s.scoring().proofBudget() != null) {
+            parts.add("prove " + s.scoring().proofBudget().toMillis() + " ms"); // the proof step can change verdicts
+        }
         parts.add("lines per file " + s.sink().linesPerFile());
         parts.add("rejects " + s.sink().writeRejects());
         return RunIds.of(parts, s.sourceFile());

@@ -267,4 +267,29 @@ class ScanCommandTest {
         assertEquals(2, bad.exit());
         assertEquals("winnow scan: max-rows 17 exceeds the supported 16\n", bad.err());
     }
+
+    @Test
+    void theProofStepSettlesWhatTheCheapTupleOnlyBoundsAndTheManifestCountsIt(@TempDir Path dir) throws Exception {
+        // The demo model; h11 of the second line is only bounded (7..11) without the exact backend, which
+        // proves 8; the quintic's h11 = 1 is proved by the cheap tuple, so no proof step runs for it.
+        Path demoModel = Path.of("../demo-data/threefolds-1pct.wnm");
+        Path in = dir.resolve("in.txt");
+        Files.writeString(in, "4:5\n2:2,1,0,0,0/2:0,1,1,1,0/1:0,0,2,0,0/1:0,0,2,0,0/1:0,0,0,1,1/1:0,0,0,0,2\n");
+        Run off = scan("--model", demoModel.toString(), "--input", in.toString(), "--keep", "h11=2..7", "--out",
+                dir.resolve("off").toString());
+        assertEquals(0, off.exit(), off.err());
+        Manifest m0 = Manifest.read(dir.resolve("off").resolve(ScanFiles.MANIFEST));
+        assertEquals(java.util.Map.of(), m0.proofs());
+        assertEquals(1L, m0.counts().keptByReason().get("kept-in-range"));
+        Run on = scan("--model", demoModel.toString(), "--input", in.toString(), "--keep", "h11=2..7", "--prove", "120s",
+                "--rejects", "--out", dir.resolve("on").toString());
+        assertEquals(0, on.exit(), on.err());
+        Manifest m1 = Manifest.read(dir.resolve("on").resolve(ScanFiles.MANIFEST));
+        assertEquals(java.util.Map.of("settled", 1L), m1.proofs());
+        assertEquals(2L, m1.counts().rejectedByReason().get("proved-h11-out-of-range"));
+        Run bad = scan("--model", demoModel.toString(), "--input", in.toString(), "--prove", "soon", "--out",
+                dir.resolve("bad").toString());
+        assertEquals(2, bad.exit());
+        assertEquals("winnow scan: --prove soon: expected a time such as 200ms or 2s\n", bad.err());
+    }
 }

@@ -6,6 +6,7 @@ import io.micrometer.core.instrument.Timer;
 import java.util.EnumMap;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
+import org.winnow.pipeline.Proof;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
 
@@ -29,10 +30,15 @@ public final class ScorerMetrics {
     public static final String TAG_VERDICT = "verdict";
     /** Tag: the reason code. */
     public static final String TAG_REASON = "reason";
+    /** Proof steps run, tagged {@value #TAG_OUTCOME}: settled, unsettled or out-of-time. */
+    public static final String PROOFS = "winnow.scorer.proofs";
+    /** Tag: the outcome of a proof step. */
+    public static final String TAG_OUTCOME = "outcome";
 
     private final Map<Reason, Counter> verdicts = new EnumMap<>(Reason.class);
     private final Timer latency;
     private final Counter[] novelty = new Counter[NOVELTY_BINS];
+    private final Map<Proof, Counter> proofs = new EnumMap<>(Proof.class);
 
     public ScorerMetrics(MeterRegistry registry) {
         for (Reason r : Reason.values()) {
@@ -40,6 +46,12 @@ public final class ScorerMetrics {
                     .tag(TAG_VERDICT, r.verdict().name().toLowerCase(java.util.Locale.ROOT))
                     .tag(TAG_REASON, r.code())
                     .register(registry));
+        }
+        for (Proof p : Proof.values()) {
+            if (p != Proof.NOT_ATTEMPTED) {
+                proofs.put(p, Counter.builder(PROOFS).description("proof steps run, by outcome")
+                        .tag(TAG_OUTCOME, p.code()).register(registry));
+            }
         }
         latency = Timer.builder(LATENCY).description("time to score one candidate").register(registry);
         for (int i = 0; i < NOVELTY_BINS; i++) {
@@ -53,6 +65,10 @@ public final class ScorerMetrics {
         verdicts.get(s.reason()).increment();
         latency.record(nanos, TimeUnit.NANOSECONDS);
         novelty[bin(s.novelty())].increment();
+        Counter proof = s.prediction() == null ? null : proofs.get(s.prediction().proof());
+        if (proof != null) {
+            proof.increment();
+        }
     }
 
     /** The bin of a novelty in [0, 1]: bin i holds ((i - 1) / N, i / N], bin 0 also holds 0. */

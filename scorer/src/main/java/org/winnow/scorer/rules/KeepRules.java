@@ -140,6 +140,44 @@ public record KeepRules(List<RangeRule> ranges, List<ResidueRule> residues, doub
         return Reason.KEPT_LOW_CONFIDENCE;
     }
 
+    /**
+     * True iff the verdict {@code reason} on this candidate could change were the values it rests on
+     * proved: no exact rule and no proof (or proved interval) decided it, and some predicted value a
+     * rule names is not proved (only h11 counts for a product, whose other values never decide). This
+     * is when the opt-in proof step is worth its time.
+     */
+    public boolean restsOnUnproved(ExactInvariants exact, Prediction prediction, Reason reason) {
+        if (reason.verdict() == org.winnow.pipeline.Verdict.REJECT && !reason.code().startsWith("predicted-")) {
+            return false; // exact, residue, proved or bounded: settled whatever the proof step finds
+        }
+        boolean product = prediction.product() || exact.blocks() > 1;
+        for (RangeRule r : ranges) {
+            if (r.invariant().exact() || product && r.invariant() != Keepable.H11) {
+                continue;
+            }
+            PredictedValue v = prediction.value(r.invariant());
+            if (v != null && !v.isProved()) {
+                return true;
+            }
+        }
+        return false;
+    }
+
+    /** True iff every predicted value a rule names (h11 only for a product) is proved or not determined. */
+    public boolean namedValuesProved(ExactInvariants exact, Prediction prediction) {
+        boolean product = prediction.product() || exact.blocks() > 1;
+        for (RangeRule r : ranges) {
+            if (r.invariant().exact() || product && r.invariant() != Keepable.H11) {
+                continue;
+            }
+            PredictedValue v = prediction.value(r.invariant());
+            if (v != null && !v.isProved()) {
+                return false;
+            }
+        }
+        return true;
+    }
+
     /** The rules as text lines, in the rules-file form, for manifests and logs. */
     public List<String> describe() {
         List<String> lines = new ArrayList<>();

@@ -14,6 +14,11 @@ public interface ScoringFunctions {
     /** The checksum of the model behind the predictions, for the manifest. */
     String modelChecksum();
 
+    /** The per-candidate budget of the opt-in proof step, or null when it is off (the default). */
+    default java.time.Duration proofBudget() {
+        return null;
+    }
+
     /** The model file these functions were loaded from, as an absolute path, or null when not from a file. */
     default String modelFile() {
         return null;
