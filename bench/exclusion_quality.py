@@ -1,11 +1,13 @@
 #!/usr/bin/env python3
 """Exclusion quality of a finished scan against exact labels.
 
-Reads an exactly labelled three-fold file (config, h11, h21, ...; chi = 2 (h11 - h21)) and a scan's
-survivor files, and reports the recall of true targets (labelled configurations inside every range)
-and the rejection of the others. Only the rows present in the labels count.
+Reads an exactly labelled file and a scan's survivor files, and reports the recall of true targets
+(labelled configurations inside every range) and the rejection of the others. Only the rows present in
+the labels count. Three-fold labels are config, h11, h21, ... with chi = 2 (h11 - h21); four-fold labels
+(a header naming h31 and h22) are config, h11, h21, h31, h22, ... with chi = 48 + 6 (h11 - h21 + h31)
+(the identity of full holonomy; the label files hold non-products only).
 
-Usage: exclusion_quality.py LABELS.tsv SCAN_DIR h11=LO..HI chi=LO..HI [...]
+Usage: exclusion_quality.py LABELS.tsv SCAN_DIR h11=LO..HI chi=LO..HI [h31=LO..HI ...]
 """
 import glob
 import os
@@ -17,7 +19,7 @@ def ranges(args):
     for a in args:
         name, span = a.split("=")
         lo, hi = span.split("..")
-        out[name] = (int(lo), int(hi))
+        out[name] = (int(lo) if lo else -10**18, int(hi) if hi else 10**18)
     return out
 
 
@@ -34,10 +36,16 @@ def main():
                 survivors.add(line.split("\t")[0])
     targets = kept_targets = others = rejected_others = 0
     with open(labels, encoding="utf-8") as f:
-        next(f)
+        header = next(f).rstrip("\n").split("\t")
+        four = len(header) > 4 and header[3] == "h31" and header[4] == "h22"
         for line in f:
-            cfg, h11, h21 = line.rstrip("\n").split("\t")[:3]
-            value = {"h11": int(h11), "h21": int(h21), "chi": 2 * (int(h11) - int(h21))}
+            fields = line.rstrip("\n").split("\t")
+            cfg, h11, h21 = fields[0], int(fields[1]), int(fields[2])
+            if four:
+                h31, h22 = int(fields[3]), int(fields[4])
+                value = {"h11": h11, "h21": h21, "h31": h31, "h22": h22, "chi": 48 + 6 * (h11 - h21 + h31)}
+            else:
+                value = {"h11": h11, "h21": h21, "chi": 2 * (h11 - h21)}
             target = all(lo <= value[k] <= hi for k, (lo, hi) in keep.items())
             if target:
                 targets += 1

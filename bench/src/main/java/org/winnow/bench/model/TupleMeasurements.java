@@ -1,0 +1,212 @@
+package org.winnow.bench.model;
+
+import java.io.IOException;
+import java.lang.management.ManagementFactory;
+import java.lang.management.ThreadMXBean;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Duration;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+import java.util.Locale;
+import java.util.SplittableRandom;
+import org.winnow.geometry.Configuration;
+import org.winnow.geometry.cohomology.H11Estimator;
+import org.winnow.geometry.cohomology.Interval;
+import org.winnow.geometry.hodge.HodgeEngine;
+import org.winnow.geometry.hodge.HodgeResult;
+import org.winnow.geometry.hodge.RefinedH11Estimator;
+import org.winnow.geometry.hodge.RefinedTupleEstimator;
+import org.winnow.geometry.invariants.InvariantCalculator;
+import org.winnow.geometry.invariants.RandomConfigurations;
+import org.winnow.pipeline.ExactInvariants;
+import org.winnow.pipeline.PredictedValue;
+import org.winnow.pipeline.Prediction;
+import org.winnow.scorer.model.FrozenModel;
+import org.winnow.scorer.model.Predictor;
+import org.winnow.scorer.stage.CheapInvariantFunction;
+import org.winnow.scorer.stage.ModelScoring;
+import org.winnow.scorer.stage.PredictionFunction;
+
+/**
+ * Measurements of the tuple anchor (model file version 4) for docs/model.md and docs/benchmarks.md.
+ *
+ * <p>{@code --cost MODEL --input F [--rounds R] [--every N]}: thread CPU per candidate, in one run and
+ * interleaved in R rounds with fresh estimators each round (so every round pays its engine calls), of the
+ * whole scoring ({@link Predictor#predict}: tuple anchor, first-page features, network, search, vote), of
+ * the tuple anchor alone ({@link RefinedTupleEstimator#estimate}), of the plain first page the features
+ * also read ({@link H11Estimator}) and of the h11-only anchor ({@link RefinedH11Estimator}); the scoring
+ * cost with the h11-only anchor is then the whole minus the tuple and the page plus the h11-only anchor.
+ *
+ * <p>{@code --random N --model MODEL [--max-rows R] [--max-n N] [--seed S] [--prove MS]}: N random
+ * three-folds of the project's {@link RandomConfigurations} (hyperplane columns, blocks and redundant
+ * descriptions included, most outside the enumerated space), labelled by the Hodge engine with its exact
+ * backend; the model's h11 against it, how each value is known, and how many values marked proved are
+ * wrong (must be 0); with {@code --prove} the same after the opt-in proof step at that budget.
+ */
+public final class TupleMeasurements {
+    private static final ThreadMXBean CPU = ManagementFactory.getThreadMXBean();
+
+    private TupleMeasurements() {}
+
+    public static void main(String[] args) throws IOException {
+        Path model = null;
+        Path input = null;
+        int rounds = 5;
+        int every = 1;
+        int random = 0;
+        int maxRows = 7;
+        int maxN = 3;
+        long seed = 1;
+        long proveMs = 0;
+        boolean cost = false;
+        for (int i = 0; i < args.length; i++) {
+            switch (args[i]) {
+                case "--cost" -> {
+                    cost = true;
+                    model = Path.of(args[++i]);
+                }
+                case "--model" -> model = Path.of(args[++i]);
+                case "--input" -> input = Path.of(args[++i]);
+                case "--rounds" -> rounds = Integer.parseInt(args[++i]);
+                case "--every" -> every = Integer.parseInt(args[++i]);
+                case "--random" -> random = Integer.parseInt(args[++i]);
+                case "--max-rows" -> maxRows = Integer.parseInt(args[++i]);
+                case "--max-n" -> maxN = Integer.parseInt(args[++i]);
+                case "--seed" -> seed = Long.parseLong(args[++i]);
+                case "--prove" -> proveMs = Long.parseLong(args[++i]);
+                default -> throw new IllegalArgumentException("unknown option " + args[i] + " (use --cost MODEL --input F"
+                        + " [--rounds R] [--every N], or --random N --model MODEL [--max-rows R] [--max-n N] [--seed S]"
+                        + " [--prove MS])");
+            }
+        }
+        if (cost) {
+            cost(FrozenModel.load(model), input, rounds, every);
+        } else {
+            random(FrozenModel.load(model), random, maxRows, maxN, seed, proveMs);
+        }
+    }
+
+    private static void cost(FrozenModel model, Path input, int rounds, int every) throws IOException {
+        InvariantCalculator invariants = new InvariantCalculator();
+        List<Configuration> configs = new ArrayList<>();
+        List<Long> chis = new ArrayList<>();
+        int n = 0;
+        for (String line : Files.readAllLines(input)) {
+            if (line.isBlank() || line.startsWith("#") || line.startsWith("config\t")) {
+                continue;
+            }
+            if (n++ % every != 0) {
+                continue;
+            }
+            Configuration c = Configuration.parse(line.split("\t")[0]);
+            configs.add(c);
+            chis.add(invariants.chi(c));
+        }
+        double[][] perRound = new double[4][rounds];
+        long sink = 0;
+        for (int r = 0; r < rounds; r++) {
+            Predictor p = model.newPredictor();
+            RefinedTupleEstimator tuple = new RefinedTupleEstimator();
+            H11Estimator page = new H11Estimator();
+            RefinedH11Estimator h11 = new RefinedH11Estimator();
+            long[] t = new long[4];
+            for (int i = 0; i < configs.size(); i++) {
+                Configuration c = configs.get(i);
+                long chi = chis.get(i);
+                long a = CPU.getCurrentThreadCpuTime();
+                sink += p.predict(c, chi).h11();
+                long b = CPU.getCurrentThreadCpuTime();
+                sink += tuple.estimate(c, chi).h11().value();
+                long d = CPU.getCurrentThreadCpuTime();
+                sink += page.estimate(c);
+                long e = CPU.getCurrentThreadCpuTime();
+                sink += h11.estimate(c);
+                long f = CPU.getCurrentThreadCpuTime();
+                t[0] += b - a;
+                t[1] += d - b;
+                t[2] += e - d;
+                t[3] += f - e;
+            }
+            for (int k = 0; k < 4; k++) {
+                perRound[k][r] = t[k] / 1e3 / configs.size();
+            }
+        }
+        double whole = median(perRound[0]);
+        double tupleUs = median(perRound[1]);
+        double pageUs = median(perRound[2]);
+        double h11Us = median(perRound[3]);
+        double h11Scoring = whole - tupleUs - pageUs + h11Us;
+        System.out.printf(Locale.ROOT, "candidates: %d (every %d of %s), rounds %d, medians of the rounds, thread CPU%n",
+                configs.size(), every, input, rounds);
+        System.out.printf(Locale.ROOT, "scoring with the tuple anchor: %.1f us per candidate%n", whole);
+        System.out.printf(Locale.ROOT, "  tuple anchor alone: %.1f us; plain first page: %.1f us; h11-only anchor: %.1f us%n",
+                tupleUs, pageUs, h11Us);
+        System.out.printf(Locale.ROOT, "scoring with the h11-only anchor (whole - tuple - page + h11-only): %.1f us%n",
+                h11Scoring);
+        System.out.printf(Locale.ROOT, "ratio: %.2fx (goal at most 1.5x)%n", whole / h11Scoring);
+        System.out.println("(checksum " + sink + ")");
+    }
+
+    private static double median(double[] v) {
+        double[] s = v.clone();
+        Arrays.sort(s);
+        return s.length % 2 == 1 ? s[s.length / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2;
+    }
+
+    private static void random(FrozenModel model, int count, int maxRows, int maxN, long seed, long proveMs) {
+        RandomConfigurations gen = new RandomConfigurations(new SplittableRandom(seed));
+        HodgeEngine exact = HodgeEngine.standard();
+        CheapInvariantFunction cheap = new CheapInvariantFunction();
+        PredictionFunction plain = new ModelScoring(model).newPredictions();
+        PredictionFunction proving = proveMs > 0
+                ? new ModelScoring(model).withProofBudget(Duration.ofMillis(proveMs), System::nanoTime).newPredictions() : null;
+        int drawn = 0;
+        int labelled = 0;
+        int[] right = new int[2];
+        int[][] bases = new int[2][3];
+        int[] wrongProved = new int[2];
+        int[] outside = new int[2];
+        int[] outOfTime = new int[1];
+        while (labelled < count && drawn < 50 * count) {
+            Configuration c = gen.calabiYau(3, maxRows, maxN);
+            drawn++;
+            HodgeResult truth = exact.compute(c);
+            if (!truth.isExact()) {
+                continue;
+            }
+            labelled++;
+            ExactInvariants ex = cheap.compute(c);
+            Prediction p = plain.predict(c, ex);
+            tally(p.h11Value(), truth.h11(), 0, right, bases, wrongProved, outside);
+            if (proving != null) {
+                Prediction q = p.h11Value().isProved() ? p : proving.prove(c, ex, p, Duration.ofMillis(proveMs));
+                outOfTime[0] += q.proof() == org.winnow.pipeline.Proof.OUT_OF_TIME ? 1 : 0;
+                tally(q.h11Value(), truth.h11(), 1, right, bases, wrongProved, outside);
+            }
+        }
+        System.out.printf(Locale.ROOT, "random three-folds: %d drawn, %d with an exact label (max rows %d, max n %d, seed %d)%n",
+                drawn, labelled, maxRows, maxN, seed);
+        for (int k = 0; k < (proving == null ? 1 : 2); k++) {
+            System.out.printf(Locale.ROOT, "%s: h11 right %d (%.4f); proved %d, bounded %d, estimated %d; wrong values marked "
+                    + "proved %d; labels outside a proved interval %d%n", k == 0 ? "model" : "after --prove " + proveMs + " ms",
+                    right[k], right[k] / (double) labelled, bases[k][0], bases[k][1], bases[k][2], wrongProved[k], outside[k]);
+        }
+        if (proving != null) {
+            System.out.println("proof steps out of time: " + outOfTime[0]);
+        }
+    }
+
+    private static void tally(PredictedValue v, Interval truth, int k, int[] right, int[][] bases, int[] wrongProved,
+            int[] outside) {
+        long t = truth.value();
+        right[k] += v.value() == t ? 1 : 0;
+        bases[k][v.basis().ordinal()]++;
+        switch (v.basis()) {
+            case PROVED -> wrongProved[k] += v.value() == t ? 0 : 1;
+            case BOUNDED -> outside[k] += v.lo() <= t && t <= v.hi() ? 0 : 1;
+            case ESTIMATED -> { }
+        }
+    }
+}
