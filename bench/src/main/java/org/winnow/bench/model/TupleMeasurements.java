@@ -44,6 +44,10 @@ import org.winnow.scorer.stage.PredictionFunction;
  * descriptions included, most outside the enumerated space), labelled by the Hodge engine with its exact
  * backend; the model's h11 against it, how each value is known, and how many values marked proved are
  * wrong (must be 0); with {@code --prove} the same after the opt-in proof step at that budget.
+ *
+ * <p>{@code --tuple LABELS.tsv --model MODEL [--every N] [--prove MS]}: the whole four-fold tuple against
+ * exact labels ({@code config h11 h21 h31 h22 ...}), every N-th non-product row, before and after the
+ * proof step on the rows whose tuple is not all proved.
  */
 public final class TupleMeasurements {
     private static final ThreadMXBean CPU = ManagementFactory.getThreadMXBean();
@@ -61,6 +65,7 @@ public final class TupleMeasurements {
         long seed = 1;
         long proveMs = 0;
         boolean cost = false;
+        Path labels = null;
         for (int i = 0; i < args.length; i++) {
             switch (args[i]) {
                 case "--cost" -> {
@@ -68,6 +73,7 @@ public final class TupleMeasurements {
                     model = Path.of(args[++i]);
                 }
                 case "--model" -> model = Path.of(args[++i]);
+                case "--tuple" -> labels = Path.of(args[++i]);
                 case "--input" -> input = Path.of(args[++i]);
                 case "--rounds" -> rounds = Integer.parseInt(args[++i]);
                 case "--every" -> every = Integer.parseInt(args[++i]);
@@ -83,6 +89,8 @@ public final class TupleMeasurements {
         }
         if (cost) {
             cost(FrozenModel.load(model), input, rounds, every);
+        } else if (labels != null) {
+            tuple(FrozenModel.load(model), labels, every, proveMs);
         } else {
             random(FrozenModel.load(model), random, maxRows, maxN, seed, proveMs);
         }
@@ -196,6 +204,86 @@ public final class TupleMeasurements {
         if (proving != null) {
             System.out.println("proof steps out of time: " + outOfTime[0]);
         }
+    }
+
+    private static void tuple(FrozenModel model, Path labels, int every, long proveMs) throws IOException {
+        CheapInvariantFunction cheap = new CheapInvariantFunction();
+        ModelScoring scoring = new ModelScoring(model);
+        PredictionFunction plain = scoring.newPredictions();
+        PredictionFunction proving = proveMs > 0
+                ? scoring.withProofBudget(Duration.ofMillis(proveMs), System::nanoTime).newPredictions() : null;
+        int n = 0;
+        int rows = 0;
+        int[] allRight = new int[2];
+        int unproved = 0;
+        int settled = 0;
+        int outOfTime = 0;
+        int[] wrongProved = new int[2];
+        long proofNanos = 0;
+        for (String line : Files.readAllLines(labels)) {
+            if (line.isBlank() || line.startsWith("#") || line.startsWith("config\t")) {
+                continue;
+            }
+            if (n++ % every != 0) {
+                continue;
+            }
+            String[] f = line.split("\t");
+            Configuration c = Configuration.parse(f[0]);
+            ExactInvariants ex = cheap.compute(c);
+            if (ex.blocks() > 1 || ex.dim() != model.dimension()) {
+                continue; // products: the identities the labels' tuple rests on do not hold
+            }
+            long[] truth = {Long.parseLong(f[1]), Long.parseLong(f[2]), Long.parseLong(f[3]), Long.parseLong(f[4])};
+            rows++;
+            Prediction p = plain.predict(c, ex);
+            boolean right = tupleRight(p, truth);
+            allRight[0] += right ? 1 : 0;
+            wrongProved[0] += wrongProofs(p, truth);
+            Prediction q = p;
+            if (proving != null && !allProved(p)) {
+                unproved++;
+                long t0 = System.nanoTime();
+                q = proving.prove(c, ex, p, Duration.ofMillis(proveMs));
+                proofNanos += System.nanoTime() - t0;
+                settled += allProved(q) ? 1 : 0;
+                outOfTime += q.proof() == org.winnow.pipeline.Proof.OUT_OF_TIME ? 1 : 0;
+            }
+            allRight[1] += tupleRight(q, truth) ? 1 : 0;
+            wrongProved[1] += wrongProofs(q, truth);
+        }
+        System.out.printf(Locale.ROOT, "labelled four-folds: %d (every %d of %s, non-products)%n", rows, every, labels);
+        System.out.printf(Locale.ROOT, "model: tuple right %.4f, wrong values marked proved %d%n", allRight[0] / (double) rows,
+                wrongProved[0]);
+        if (proving != null) {
+            System.out.printf(Locale.ROOT, "after --prove %d ms on the %d not all proved: %d all proved, %d out of time, "
+                    + "%.0f ms wall each on average; tuple right %.4f, wrong values marked proved %d%n", proveMs, unproved,
+                    settled, outOfTime, unproved == 0 ? 0 : proofNanos / 1e6 / unproved, allRight[1] / (double) rows,
+                    wrongProved[1]);
+        }
+    }
+
+    private static boolean allProved(Prediction p) {
+        return p.h11Value().isProved() && p.h21Value() != null && p.h21Value().isProved()
+                && (p.h31Value() == null || p.h31Value().isProved()) && (p.h22Value() == null || p.h22Value().isProved());
+    }
+
+    private static boolean tupleRight(Prediction p, long[] truth) {
+        PredictedValue[] v = {p.h11Value(), p.h21Value(), p.h31Value(), p.h22Value()};
+        for (int i = 0; i < 4; i++) {
+            if (v[i] == null || v[i].value() != truth[i]) {
+                return false;
+            }
+        }
+        return true;
+    }
+
+    private static int wrongProofs(Prediction p, long[] truth) {
+        PredictedValue[] v = {p.h11Value(), p.h21Value(), p.h31Value(), p.h22Value()};
+        int wrong = 0;
+        for (int i = 0; i < 4; i++) {
+            wrong += v[i] != null && v[i].isProved() && v[i].value() != truth[i] ? 1 : 0;
+        }
+        return wrong;
     }
 
     private static void tally(PredictedValue v, Interval truth, int k, int[] right, int[][] bases, int[] wrongProved,
