@@ -19,7 +19,8 @@ import org.winnow.geometry.Checks;
  * @param proof            what the opt-in proof step did for this candidate
  */
 public record Prediction(PredictedValue h11Value, PredictedValue h21Value, PredictedValue h31Value,
-        PredictedValue h22Value, boolean product, double novelty, String nearestReference, Proof proof) {
+        PredictedValue h22Value, boolean product, double novelty, String nearestReference, Proof proof)
+        implements HodgeValues {
     public Prediction {
         Objects.requireNonNull(h11Value, "h11Value");
         Objects.requireNonNull(proof, "proof");
@@ -56,41 +57,5 @@ public record Prediction(PredictedValue h11Value, PredictedValue h21Value, Predi
     /** A prediction without the four-fold numbers h31 and h22 (a three-fold, or a stand-in model). */
     public static Prediction of(int h11, double confidence, Integer h21, double novelty, String nearestReference) {
         return new Prediction(h11, confidence, h21, null, null, novelty, nearestReference);
-    }
-
-    /** The predicted h11. */
-    public int h11() {
-        return Math.toIntExact(h11Value.value());
-    }
-
-    /** The confidence of h11: 1 when proved. */
-    public double confidence() {
-        return h11Value.confidence();
-    }
-
-    /** The predicted h21, or null. */
-    public Integer h21() {
-        return h21Value == null ? null : Math.toIntExact(h21Value.value());
-    }
-
-    /** The predicted h31, or null. */
-    public Integer h31() {
-        return h31Value == null ? null : Math.toIntExact(h31Value.value());
-    }
-
-    /** The predicted h22, or null. */
-    public Integer h22() {
-        return h22Value == null ? null : Math.toIntExact(h22Value.value());
-    }
-
-    /** The value of {@code invariant} (a predicted one), or null when not determined. */
-    public PredictedValue value(Keepable invariant) {
-        return switch (invariant) {
-            case H11 -> h11Value;
-            case H21 -> h21Value;
-            case H31 -> h31Value;
-            case H22 -> h22Value;
-            default -> throw new IllegalArgumentException(invariant.label() + " is not predicted");
-        };
     }
 }

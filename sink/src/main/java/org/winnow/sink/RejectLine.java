@@ -1,6 +1,7 @@
 package org.winnow.sink;
 
 import org.winnow.geometry.Checks;
+import org.winnow.pipeline.HodgeValues;
 import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Reason;
 import org.winnow.pipeline.Scored;
@@ -13,7 +14,7 @@ import org.winnow.pipeline.Verdict;
  * every value as estimated.
  */
 public record RejectLine(String config, long chi, PredictedValue h11Value, PredictedValue h21Value,
-        PredictedValue h31Value, PredictedValue h22Value, double novelty, Reason rejectedBecause) {
+        PredictedValue h31Value, PredictedValue h22Value, double novelty, Reason rejectedBecause) implements HodgeValues {
     /** The column names, in order. */
     public static final String COLUMNS = "config\tchi\t" + SurvivorLine.valueColumns() + "\tnovelty\trejected_because";
 
@@ -52,20 +53,5 @@ public record RejectLine(String config, long chi, PredictedValue h11Value, Predi
         Reason r = Reason.ofCode(code);
         Checks.requireArgument(r.verdict() == Verdict.REJECT, "not a reject reason: %s", code);
         return r;
-    }
-
-    /** The predicted h11. */
-    public int h11() {
-        return Math.toIntExact(h11Value.value());
-    }
-
-    /** The confidence of h11 (1 when proved). */
-    public double confidence() {
-        return h11Value.confidence();
-    }
-
-    /** The predicted h21, or null. */
-    public Integer h21() {
-        return h21Value == null ? null : Math.toIntExact(h21Value.value());
     }
 }

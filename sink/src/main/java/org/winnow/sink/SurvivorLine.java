@@ -3,6 +3,7 @@ package org.winnow.sink;
 import java.util.Locale;
 import org.winnow.geometry.Checks;
 import org.winnow.geometry.hodge.Basis;
+import org.winnow.pipeline.HodgeValues;
 import org.winnow.pipeline.Prediction;
 import org.winnow.pipeline.PredictedValue;
 import org.winnow.pipeline.Reason;
@@ -18,7 +19,8 @@ import org.winnow.pipeline.Verdict;
  * nearest_reference}) are still read, every value as estimated: they did not say how a value was known.
  */
 public record SurvivorLine(String config, long chi, PredictedValue h11Value, PredictedValue h21Value,
-        PredictedValue h31Value, PredictedValue h22Value, double novelty, Reason keptBecause, String nearestReference) {
+        PredictedValue h31Value, PredictedValue h22Value, double novelty, Reason keptBecause, String nearestReference)
+        implements HodgeValues {
     /** The column names, in order. */
     public static final String COLUMNS = "config\tchi\t" + valueColumns() + "\tnovelty\tkept_because\tnearest_reference";
     /** The column names of format 1. */
@@ -128,20 +130,5 @@ public record SurvivorLine(String config, long chi, PredictedValue h11Value, Pre
     /** Six decimals: finer than any vote share or p-value of a practical reference set. */
     static String fraction(double x) {
         return String.format(Locale.ROOT, "%.6f", x);
-    }
-
-    /** The predicted h11. */
-    public int h11() {
-        return Math.toIntExact(h11Value.value());
-    }
-
-    /** The confidence of h11 (1 when proved). */
-    public double confidence() {
-        return h11Value.confidence();
-    }
-
-    /** The predicted h21, or null. */
-    public Integer h21() {
-        return h21Value == null ? null : Math.toIntExact(h21Value.value());
     }
 }
