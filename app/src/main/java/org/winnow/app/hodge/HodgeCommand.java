@@ -2,8 +2,7 @@ package org.winnow.app.hodge;
 
 import java.io.IOException;
 import java.io.PrintWriter;
-import java.util.ArrayList;
-import java.util.List;
+import java.util.ArrayDeque;
 import java.util.Optional;
 import java.util.concurrent.Callable;
 import java.util.concurrent.ExecutionException;
@@ -55,7 +54,20 @@ public final class HodgeCommand implements Callable<Integer> {
 
     private record Job(String input, Configuration canonical) {}
 
-    private final List<Job> jobs = new ArrayList<>();
+    /**
+     * Results in flight, oldest first. Each is printed and dropped as soon as it is the oldest and done, so
+     * memory is bounded by {@link #WINDOW} whatever the size of the input (a million four-folds once held
+     * every result to the end: 4.2 GB).
+     */
+    private final ArrayDeque<Pending> inFlight = new ArrayDeque<>();
+    private static final int PER_THREAD = 256;
+    private int window;
+    private ExecutorService pool;
+    private ThreadLocal<HodgeEngine> engines;
+    private final HodgeSummary stats = new HodgeSummary();
+
+    private record Pending(Job job, Future<HodgeResult> result) {}
+
     private PrintWriter out;
     private PrintWriter err;
     private int bad;
@@ -70,30 +82,14 @@ public final class HodgeCommand implements Callable<Integer> {
         if (inputs.isEmpty()) {
             return Exit.badInput(err, "hodge", "no configuration given (pass CONFIG arguments or --file F)");
         }
-        inputs.forEach(this::process, (name, reason) -> reportBad(name, "", reason), name -> null);
-        err.flush();
-        runJobs();
-        out.flush();
-        err.flush();
-        return bad == 0 ? 0 : Exit.BAD_INPUT;
-    }
-
-    private void runJobs() {
-        ThreadLocal<HodgeEngine> engines = ThreadLocal.withInitial(HodgeEngine::standard);
-        ExecutorService pool = Executors.newFixedThreadPool(threads);
-        HodgeSummary stats = new HodgeSummary();
+        window = threads * PER_THREAD;
+        engines = ThreadLocal.withInitial(HodgeEngine::standard);
+        pool = Executors.newFixedThreadPool(threads);
         try {
-            List<Future<HodgeResult>> results = new ArrayList<>();
-            for (Job job : jobs) {
-                results.add(pool.submit(() -> engines.get().compute(job.canonical())));
-            }
-            for (int i = 0; i < jobs.size(); i++) {
-                Job job = jobs.get(i);
-                HodgeResult r = results.get(i).get();
-                stats.add(r);
-                out.println(json ? HodgeFormat.json(job.input(), job.canonical(), r)
-                        : HodgeFormat.text(job.input(), job.canonical(), r));
-                out.flush();
+            inputs.forEach(this::process, (name, reason) -> reportBad(name, "", reason), name -> null);
+            err.flush();
+            while (!inFlight.isEmpty()) {
+                printOldest();
             }
             if (summary) {
                 stats.print(err);
@@ -105,6 +101,32 @@ public final class HodgeCommand implements Callable<Integer> {
         } finally {
             pool.shutdownNow();
         }
+        out.flush();
+        err.flush();
+        return bad == 0 ? 0 : Exit.BAD_INPUT;
+    }
+
+    private void submit(Job job) {
+        inFlight.addLast(new Pending(job, pool.submit(() -> engines.get().compute(job.canonical()))));
+        if (inFlight.size() > window) {
+            try {
+                printOldest();
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+                throw new java.util.concurrent.CancellationException("interrupted");
+            } catch (ExecutionException e) {
+                throw new IllegalStateException("Hodge computation failed: " + e.getCause(), e.getCause());
+            }
+        }
+    }
+
+    private void printOldest() throws InterruptedException, ExecutionException {
+        Pending p = inFlight.removeFirst();
+        HodgeResult r = p.result().get();
+        stats.add(r);
+        out.println(json ? HodgeFormat.json(p.job().input(), p.job().canonical(), r)
+                : HodgeFormat.text(p.job().input(), p.job().canonical(), r));
+        out.flush();
     }
 
     private void process(String text, int lineNumber, String source) {
@@ -125,7 +147,7 @@ public final class HodgeCommand implements Callable<Integer> {
             reportBad(source, input, "dimension " + c.dimension() + ": Hodge numbers need dimension 2, 3 or 4");
             return;
         }
-        jobs.add(new Job(input, c.canonical()));
+        submit(new Job(input, c.canonical()));
     }
 
     private void reportBad(String source, String input, String reason) {

@@ -139,4 +139,31 @@ class HodgeCommandTest {
         assertEquals(0, run("label", "--in", in.toString(), "--out", out.toString()).exit());
         assertEquals(List.of("config\th11\th21\tstatus\tsource", "3:4\t20\t0\texact\tcomputed"), Files.readAllLines(out));
     }
+
+    @Test
+    void resultsKeepTheInputOrderBeyondTheWindowOfResultsInFlight(@TempDir Path dir) throws IOException {
+        // More lines than the 2 x 256 results held in flight with 2 threads: the printing must go on while
+        // the input is read, in input order, and a bad line among them is still reported.
+        Path space = dir.resolve("space.txt");
+        assertEquals(0, run("enumerate", "--dim", "3", "--max-rows", "4", "--out", space.toString()).exit());
+        List<String> lines = new java.util.ArrayList<>(Files.readAllLines(space));
+        assertTrue(lines.size() > 2 * 256 + 100, "size " + lines.size());
+        lines.add(300, "not a matrix");
+        Files.write(space, lines);
+        Run r = run("hodge", "--json", "--threads", "2", "--file", space.toString());
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(1, r.err().size(), String.join("\n", r.err()));
+        assertTrue(r.err().get(0).contains("line 301"), r.err().get(0));
+        assertEquals(lines.size() - 1, r.out().size());
+        List<String> inputs = new java.util.ArrayList<>();
+        for (String line : r.out()) {
+            inputs.add(JSON.readTree(line).get("input").asText());
+        }
+        List<String> expected = new java.util.ArrayList<>();
+        for (String line : lines) {
+            expected.add(line.split("\t")[0].strip());
+        }
+        expected.remove(300);
+        assertEquals(expected, inputs);
+    }
 }
