@@ -19,15 +19,30 @@ import picocli.CommandLine.Option;
 import picocli.CommandLine;
 
 /**
- * {@code winnow demo}: the main job on the built-in demo data. It scans the three-fold space straight
- * from the producer's enumeration with the shipped frozen model and rules file, and summarises the
- * survivors. It is the same code path a researcher runs with {@code scan --dim 3}; no candidates file
- * is written, because the scan's survivors and rejects already name every matrix of the space.
+ * {@code winnow demo}: the main job on the built-in demo data. It scans the three-fold space (or with
+ * {@code --dim 4} the four-fold space) straight from the producer's enumeration with the shipped frozen
+ * model and rules file of that dimension, and summarises the survivors. It is the same code path a
+ * researcher runs with {@code scan --dim D}; no candidates file is written, because the scan's survivors
+ * and rejects already name every matrix of the space.
  */
 @Command(name = "demo", mixinStandardHelpOptions = true,
-        description = "Scan the built-in demo space (all three-fold configuration matrices, rule set lossless) "
-                + "with the shipped model and rules, and summarise the survivors.")
+        description = "Scan the built-in demo space (all three-fold configuration matrices, or with --dim 4 all "
+                + "four-fold ones, rule set lossless) with the shipped model and rules, and summarise the survivors.")
 public final class DemoCommand implements Callable<Integer> {
+    /** The shipped files of each demo: model, rules, and the words for its space. */
+    private record Demo(String model, String rules, String space) {}
+
+    private static final Demo THREEFOLDS = new Demo("threefolds-1pct.wnm", "rules.txt", "three-fold");
+    private static final Demo FOURFOLDS = new Demo("fourfolds-1pct.wnm", "rules-fourfolds.txt", "four-fold");
+
+    @Option(names = "--dim", paramLabel = "D",
+            description = "3 (default): the three-fold demo; 4: the four-fold demo (1,073,425 matrices, minutes).")
+    int dim = 3;
+
+    @Option(names = "--max-rows", paramLabel = "M",
+            description = "Only the matrices with at most M rows: a quicker look at a part of the space.")
+    Integer maxRows;
+
     @Option(names = "--out", paramLabel = "DIR", description = "Where the demo run goes (default ${DEFAULT-VALUE}).")
     Path out = Path.of("demo-out");
 
@@ -45,9 +60,16 @@ public final class DemoCommand implements Callable<Integer> {
     public Integer call() throws IOException {
         PrintWriter err = spec.commandLine().getErr();
         PrintWriter o = spec.commandLine().getOut();
+        if (dim != 3 && dim != 4) {
+            return Exit.badInput(err, "demo", "--dim must be 3 or 4, got " + dim);
+        }
+        if (maxRows != null && maxRows < 1) {
+            return Exit.badInput(err, "demo", "--max-rows must be at least 1, got " + maxRows);
+        }
+        Demo demo = dim == 4 ? FOURFOLDS : THREEFOLDS;
         Path dir = data != null ? data : defaultDataDir();
-        Path model = dir.resolve("threefolds-1pct.wnm");
-        Path rules = dir.resolve("rules.txt");
+        Path model = dir.resolve(demo.model());
+        Path rules = dir.resolve(demo.rules());
         for (Path p : List.of(model, rules)) {
             if (!Files.isReadable(p)) {
                 return Exit.badInput(err, "demo", "missing demo file " + p + " (give --data DIR, the folder demo-data of the project)");
@@ -55,11 +77,16 @@ public final class DemoCommand implements Callable<Integer> {
         }
         Files.createDirectories(out);
         Path scanDir = out.resolve("scan");
-        o.println("winnow demo: scanning every three-fold configuration matrix (rule set lossless) as the producer "
-                + "enumerates it, with model " + model + " and rules " + rules);
+        o.println("winnow demo: scanning every " + demo.space() + " configuration matrix (rule set lossless"
+                + (maxRows == null ? "" : ", at most " + maxRows + " rows") + ") as the producer enumerates it, with model "
+                + model + " and rules " + rules);
         o.flush();
-        List<String> scan = new ArrayList<>(List.of("scan", "--model", model.toString(), "--dim", "3", "--exclusions",
-                "lossless", "--rules-file", rules.toString(), "--out", scanDir.toString(), "--rejects"));
+        List<String> scan = new ArrayList<>(List.of("scan", "--model", model.toString(), "--dim", Integer.toString(dim),
+                "--exclusions", "lossless", "--rules-file", rules.toString(), "--out", scanDir.toString(), "--rejects"));
+        if (maxRows != null) {
+            scan.add("--max-rows");
+            scan.add(maxRows.toString());
+        }
         if (threads != null) {
             scan.add("--threads");
             scan.add(threads.toString());
