@@ -487,10 +487,21 @@ public final class LabelCommand implements Callable<Integer> {
     static final class Progress {
         private final Thread thread;
         private volatile long total;
+        private volatile long lastLineNanos;
+        private final boolean terminal;
+        private final Counts counts;
+        private final long startNanos;
+        private final long periodMs;
+        private final PrintWriter plain;
 
         Progress(Counts counts, long total, long startNanos, long periodMs, PrintWriter plain) {
             this.total = total;
-            boolean terminal = Terminal.stderrIsTerminal();
+            this.counts = counts;
+            this.startNanos = startNanos;
+            this.periodMs = periodMs;
+            this.plain = plain;
+            this.lastLineNanos = startNanos;
+            terminal = Terminal.stderrIsTerminal();
             thread = new Thread(() -> {
                 try {
                     if (terminal) {
@@ -512,8 +523,7 @@ public final class LabelCommand implements Callable<Integer> {
                     } else {
                         while (true) {
                             Thread.sleep(periodMs);
-                            plain.println(line(counts, this.total, startNanos));
-                            plain.flush();
+                            printLine();
                         }
                     }
                 } catch (InterruptedException e) {
@@ -528,9 +538,22 @@ public final class LabelCommand implements Callable<Integer> {
             total = t;
         }
 
+        private synchronized void printLine() {
+            plain.println(line(counts, total, startNanos));
+            plain.flush();
+            lastLineNanos = System.nanoTime();
+        }
+
+        /**
+         * Stops the status; when piped, a last status line if a whole period has passed since the last one,
+         * so that a log has one at least every period however the thread was scheduled.
+         */
         void close() throws InterruptedException {
             thread.interrupt();
             thread.join(2_000);
+            if (!terminal && System.nanoTime() - lastLineNanos >= periodMs * 1_000_000L) {
+                printLine();
+            }
         }
 
         static String line(Counts counts, long total, long startNanos) {
