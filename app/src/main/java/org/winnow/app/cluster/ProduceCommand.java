@@ -78,6 +78,12 @@ public final class ProduceCommand implements Callable<Integer> {
             if (!Files.isReadable(input)) {
                 return Exit.badInput(err, "produce", "--input " + input + ": no such readable file");
             }
+            if (!Files.isRegularFile(input)) {
+                // The run's identity is a digest of the file, read before the file is sent: a pipe or a device
+                // cannot be read twice, and /dev/zero never ends.
+                return Exit.badInput(err, "produce", "--input " + input + ": not a regular file (a directory, a pipe "
+                        + "or a device); give a file of configurations, one a line");
+            }
             metrics.validate();
             KafkaSettings k = connection.settings();
             String identity = ClusterProducer.sourceIdentity(input);

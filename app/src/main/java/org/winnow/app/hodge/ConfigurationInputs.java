@@ -1,10 +1,6 @@
 package org.winnow.app.hodge;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
-import java.nio.charset.CodingErrorAction;
-import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
 import java.nio.file.Path;
@@ -14,6 +10,8 @@ import java.util.function.Function;
 import me.tongfei.progressbar.ProgressBar;
 import org.winnow.app.cli.StandardInput;
 import org.winnow.geometry.ConfigurationText;
+import org.winnow.pipeline.text.BoundedLineReader;
+import org.winnow.pipeline.text.LineTooLongException;
 import org.winnow.sink.ScanFiles;
 import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
@@ -69,10 +67,8 @@ final class ConfigurationInputs {
             }
             // Bytes that are not UTF-8 become U+FFFD, so such a line is refused with its number like any
             // other bad line (as scan --input does), instead of the whole file failing to decode.
-            try (BufferedReader reader = new BufferedReader(new InputStreamReader("-".equals(file) ? System.in
-                    : Files.newInputStream(Path.of(file)), StandardCharsets.UTF_8.newDecoder()
-                            .onMalformedInput(CodingErrorAction.REPLACE)
-                            .onUnmappableCharacter(CodingErrorAction.REPLACE)), 1 << 16);
+            try (BoundedLineReader reader = new BoundedLineReader("-".equals(file) ? System.in
+                    : Files.newInputStream(Path.of(file)), name);
                     ProgressBar bar = progress.apply(name)) {
                 String line;
                 int number = 0;
@@ -86,6 +82,8 @@ final class ConfigurationInputs {
                         bar.step();
                     }
                 }
+            } catch (LineTooLongException e) {
+                unreadable.report(name + " line " + e.line(), e.reason());
             } catch (NoSuchFileException e) {
                 unreadable.report(name, "no such file");
             } catch (IOException e) {

@@ -1,14 +1,11 @@
 package org.winnow.app.hodge;
 
-import java.io.BufferedReader;
 import java.io.BufferedWriter;
 import java.io.IOException;
-import java.io.InputStreamReader;
 import java.io.OutputStreamWriter;
 import java.io.PrintWriter;
 import java.io.RandomAccessFile;
 import java.io.UncheckedIOException;
-import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.NoSuchFileException;
@@ -42,6 +39,8 @@ import org.winnow.geometry.ConfigurationValidator;
 import org.winnow.geometry.hodge.HodgeEngine;
 import org.winnow.geometry.hodge.HodgeResult;
 import org.winnow.geometry.hodge.Status;
+import org.winnow.pipeline.text.BoundedLineReader;
+import org.winnow.pipeline.text.LineTooLongException;
 import org.winnow.producer.Enumerator;
 import org.winnow.producer.source.EnumeratedSpace;
 import org.winnow.sink.ScanFiles;
@@ -113,6 +112,8 @@ public final class LabelCommand implements Callable<Integer> {
         err = spec.commandLine().getErr();
         try {
             return label();
+        } catch (LineTooLongException e) {
+            return Exit.badInput(err, "label", e.getMessage());
         } catch (IOException e) {
             return failedWrite(e);
         } catch (UncheckedIOException e) {
@@ -166,6 +167,10 @@ public final class LabelCommand implements Callable<Integer> {
             return Exit.badInput(err, "label", in + ": is a directory; give a file of configurations, one a line");
         } else if (!Files.exists(in)) {
             return Exit.badInput(err, "label", in + ": no such file");
+        } else if (!Files.isRegularFile(in)) {
+            // The input is read twice (a count for the progress, then the labelling) and again on a rerun.
+            return Exit.badInput(err, "label", in + ": not a regular file (a pipe or a device); label reads its "
+                    + "input more than once, so give a file of configurations, one a line");
         }
         long startNanos = System.nanoTime();
         Set<String> done = new HashSet<>();
@@ -320,11 +325,9 @@ public final class LabelCommand implements Callable<Integer> {
 
     private record FilePass(long lines, boolean anyFourfold) {}
 
-    private BufferedReader open(Path file) throws IOException {
+    private static BoundedLineReader open(Path file) throws IOException {
         // Bytes that are not UTF-8 become U+FFFD: that line is refused with its number, the rest is read.
-        return new BufferedReader(new InputStreamReader(Files.newInputStream(file),
-                StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPLACE)
-                        .onUnmappableCharacter(CodingErrorAction.REPLACE)), 1 << 16);
+        return BoundedLineReader.open(file);
     }
 
     /** Counts the input lines that are not comments and, if asked, whether any parses as a four-fold. */
@@ -332,7 +335,7 @@ public final class LabelCommand implements Callable<Integer> {
         long lines = 0;
         int number = 0;
         boolean four = false;
-        try (BufferedReader reader = open(in)) {
+        try (BoundedLineReader reader = open(in)) {
             String line;
             while ((line = reader.readLine()) != null) {
                 number++;
@@ -356,7 +359,7 @@ public final class LabelCommand implements Callable<Integer> {
     }
 
     private void readInput(Set<String> done, Consumer<Configuration> offer, Counts counts) throws IOException {
-        try (BufferedReader reader = open(in)) {
+        try (BoundedLineReader reader = open(in)) {
             String line;
             int number = 0;
             while ((line = reader.readLine()) != null) {
@@ -438,9 +441,7 @@ public final class LabelCommand implements Callable<Integer> {
         }
         // Bytes that are not UTF-8 become U+FFFD, so a damaged line is named by its number rather than ending
         // the run with "Input length = 1" and the advice to rerun, which failed the same way.
-        try (BufferedReader reader = new BufferedReader(new InputStreamReader(Files.newInputStream(out),
-                StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPLACE)
-                        .onUnmappableCharacter(CodingErrorAction.REPLACE)), 1 << 16)) {
+        try (BoundedLineReader reader = open(out)) {
             String header = reader.readLine();
             if (header == null) {
                 return null;

@@ -25,6 +25,7 @@ import org.winnow.pipeline.KeyLimitException;
 import org.winnow.pipeline.SeenKeys;
 import org.winnow.pipeline.local.LocalPipeline;
 import org.winnow.pipeline.local.PipelineException;
+import org.winnow.pipeline.text.LineTooLongException;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.source.EnumeratedSpace;
 import org.winnow.producer.source.EnumerationSource;
@@ -36,6 +37,7 @@ import org.winnow.scorer.rules.RulesFile;
 import org.winnow.scorer.stage.ModelScoring;
 import org.winnow.sink.CrashHook;
 import org.winnow.sink.Manifest;
+import org.winnow.sink.ScanFiles;
 import org.winnow.sink.SinkOptions;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
@@ -143,6 +145,10 @@ public final class ScanCommand implements Callable<Integer> {
             if (cause instanceof BadInputException) {
                 return Exit.badInput(err, "scan", input + " " + cause.getMessage() + " (--strict)");
             }
+            if (cause instanceof LineTooLongException) {
+                // The file grew such a line after the count (edited between a stop and the rerun).
+                return Exit.badInput(err, "scan", "--input " + cause.getMessage());
+            }
             if (cause instanceof KeyLimitException) {
                 err.println("winnow scan: stopped: " + cause.getMessage() + "; what was committed stays, rerun to continue");
                 err.flush();
@@ -229,10 +235,24 @@ public final class ScanCommand implements Callable<Integer> {
             if (!Files.isReadable(input)) {
                 throw new StartupException("--input " + input + ": no such readable file");
             }
-            source = new InputFileSource(input);
+            if (!Files.isRegularFile(input)) {
+                // A pipe or a device could be read once at most, and the scan reads its input twice (the count
+                // below, then the scan) and again on a rerun; /dev/zero would be read for ever.
+                throw new StartupException("--input " + input + ": not a regular file (a pipe or a device); scan "
+                        + "reads its input more than once, so give a file of configurations, one a line");
+            }
+            InputFileSource file = new InputFileSource(input);
+            source = file;
             // The duplicate check holds every distinct key; refuse a file that may not fit now rather
             // than stop hours into the run. Its line count bounds its distinct candidates from above.
-            long lines = source.size().orElse(0);
+            long lines;
+            try {
+                lines = file.count();
+            } catch (LineTooLongException e) {
+                throw new StartupException("--input " + e.getMessage());
+            } catch (IOException e) {
+                throw new StartupException("--input " + input + ": cannot read (" + ScanFiles.describe(e) + ")");
+            }
             long limit = SeenKeys.limitForThisHeap();
             if (lines > limit) {
                 throw new StartupException("--input " + input + ": " + KeyLimitException.message(

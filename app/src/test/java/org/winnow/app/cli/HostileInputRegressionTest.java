@@ -18,6 +18,7 @@ import java.util.ArrayList;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.winnow.pipeline.text.BoundedLineReader;
 import org.winnow.scorer.rules.RuleException;
 import org.winnow.scorer.rules.RulesFile;
 import picocli.CommandLine;
@@ -202,6 +203,115 @@ class HostileInputRegressionTest {
         assertTrue(assertThrows(RuleException.class, () -> RulesFile.read(f)).getMessage().startsWith(f + ":2: "));
         Files.write(f, new byte[] {'k', 'e', 'e', 'p', ' ', 'h', '1', '1', '=', (byte) 0xC3, '\n'});
         assertTrue(assertThrows(RuleException.class, () -> RulesFile.read(f)).getMessage().startsWith(f + ":1: "));
+    }
+
+    /** A configuration line and then one line longer than any reader takes: no newline for 8 Mi + 1 characters. */
+    private static Path fileWithAnEndlessSecondLine(Path tmp) throws IOException {
+        Path f = tmp.resolve("long.txt");
+        Files.writeString(f, "4:5\n" + "1".repeat(BoundedLineReader.MAX_LINE + 1) + "\n2:3/2:3\n");
+        return f;
+    }
+
+    private static final String TOO_LONG = " line 2: longer than 8388608 characters; is it a text file with one entry"
+            + " a line?";
+
+    private static final Path DEMO_MODEL = Path.of("../demo-data/threefolds-1pct.wnm");
+
+    /** {@code winnow hodge --file /dev/zero} used to run out of memory with a stack trace. */
+    @Test
+    void hodgeRefusesALineLongerThanTheLimitNamingFileAndLine(@TempDir Path tmp) throws Exception {
+        Path f = fileWithAnEndlessSecondLine(tmp);
+        Run r = winnow("hodge", "--file", f.toString());
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(List.of("winnow hodge: " + f + TOO_LONG), r.errLines());
+        assertTrue(r.out().startsWith("4:5"), r.out());
+        Run inv = winnow("invariants", "--file", f.toString());
+        assertEquals(Exit.BAD_INPUT, inv.exit());
+        assertEquals(List.of("winnow invariants: " + f + TOO_LONG), inv.errLines());
+        Path zero = Path.of("/dev/zero");
+        assumeTrue(Files.isReadable(zero), "no /dev/zero here");
+        Run z = winnow("hodge", "--file", zero.toString());
+        assertEquals(Exit.BAD_INPUT, z.exit());
+        assertEquals(List.of("winnow hodge: /dev/zero line 1: longer than 8388608 characters; is it a text file with"
+                + " one entry a line?"), z.errLines());
+    }
+
+    /** {@code winnow scan --input /dev/zero} used to hang counting the lines of an endless file. */
+    @Test
+    void scanRefusesAnEndlessLineAndAnInputThatIsNoRegularFile(@TempDir Path tmp) throws Exception {
+        Path f = fileWithAnEndlessSecondLine(tmp);
+        Run r = winnow("scan", "--model", DEMO_MODEL.toString(), "--input", f.toString(), "--out",
+                tmp.resolve("o").toString());
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(List.of("winnow scan: --input " + f + TOO_LONG), r.errLines());
+        assertFalse(Files.exists(tmp.resolve("o")), "nothing is written for refused input");
+        Path zero = Path.of("/dev/zero");
+        assumeTrue(Files.isReadable(zero), "no /dev/zero here");
+        Run z = winnow("scan", "--model", DEMO_MODEL.toString(), "--input", zero.toString(), "--out",
+                tmp.resolve("o").toString());
+        assertEquals(Exit.BAD_INPUT, z.exit());
+        assertEquals(List.of("winnow scan: --input /dev/zero: not a regular file (a pipe or a device); scan reads its"
+                + " input more than once, so give a file of configurations, one a line"), z.errLines());
+        Path good = Files.writeString(tmp.resolve("good.txt"), "4:5\n");
+        Run m = winnow("scan", "--model", zero.toString(), "--input", good.toString(), "--out",
+                tmp.resolve("o").toString());
+        assertEquals(Exit.BAD_INPUT, m.exit());
+        assertEquals(1, m.errLines().size(), m.err());
+        assertTrue(m.err().startsWith("winnow scan: --model /dev/zero: not a regular file"), m.err());
+    }
+
+    /** {@code winnow label --in} on a file with an endless line, and on a device, in one line each. */
+    @Test
+    void labelRefusesAnEndlessLineAndAnInputThatIsNoRegularFile(@TempDir Path tmp) throws Exception {
+        Path f = fileWithAnEndlessSecondLine(tmp);
+        Path out = tmp.resolve("labels.tsv");
+        Run r = winnow("label", "--in", f.toString(), "--out", out.toString());
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(List.of("winnow label: " + f + TOO_LONG), r.errLines());
+        Path zero = Path.of("/dev/zero");
+        assumeTrue(Files.isReadable(zero), "no /dev/zero here");
+        Run z = winnow("label", "--in", zero.toString(), "--out", out.toString());
+        assertEquals(Exit.BAD_INPUT, z.exit());
+        assertEquals(1, z.errLines().size(), z.err());
+        assertTrue(z.err().startsWith("winnow label: /dev/zero: not a regular file"), z.err());
+    }
+
+    /** A rules file over 1 MiB, {@code /dev/zero} and a directory as the rules file: one line each, exit 2. */
+    @Test
+    void aRulesFileThatIsTooLargeOrADirectoryIsRefusedInOneLine(@TempDir Path tmp) throws Exception {
+        Path big = tmp.resolve("rules.txt");
+        // Valid rules and comments, but more bytes than a rules file may have.
+        Files.writeString(big, "keep h11=2..5\n" + "# padding\n".repeat(RulesFile.MAX_BYTES / 10 + 1));
+        RuleException e = assertThrows(RuleException.class, () -> RulesFile.read(big));
+        assertEquals(big + ": longer than 1048576 bytes (1 MiB), which no rules file needs; is it the right file?",
+                e.getMessage());
+        Files.writeString(big, "keep h11=2..5\n" + "#".repeat(RulesFile.MAX_BYTES - 15) + "\n");
+        assertEquals(RulesFile.MAX_BYTES, Files.size(big));
+        assertEquals(List.of("h11=2..5"), RulesFile.read(big).keeps(), "a file of exactly the limit is read");
+        Path input = Files.writeString(tmp.resolve("in.txt"), "4:5\n");
+        Run dir = winnow("scan", "--model", DEMO_MODEL.toString(), "--input", input.toString(), "--rules-file",
+                tmp.toString(), "--out", tmp.resolve("o").toString());
+        assertEquals(Exit.BAD_INPUT, dir.exit());
+        assertEquals(List.of("winnow scan: " + tmp + ": is a directory; give a text file of rules, one a line"),
+                dir.errLines());
+        Path zero = Path.of("/dev/zero");
+        assumeTrue(Files.isReadable(zero), "no /dev/zero here");
+        Run z = winnow("scan", "--model", DEMO_MODEL.toString(), "--input", input.toString(), "--rules-file",
+                zero.toString(), "--out", tmp.resolve("o").toString());
+        assertEquals(Exit.BAD_INPUT, z.exit());
+        assertEquals(List.of("winnow scan: /dev/zero: longer than 1048576 bytes (1 MiB), which no rules file needs; "
+                + "is it the right file?"), z.errLines());
+    }
+
+    /** A reference file with an endless line is refused by its line, as every other bad reference line. */
+    @Test
+    void aReferenceWithAnEndlessLineIsRefusedByItsLine(@TempDir Path tmp) throws Exception {
+        Path f = tmp.resolve("ref.tsv");
+        Files.writeString(f, "config\th11\th21\tstatus\tsource\n" + "x".repeat(BoundedLineReader.MAX_LINE + 1));
+        Run r = winnow("sample", "--reference", f.toString(), "--fraction", "0.5", "--out",
+                tmp.resolve("s.tsv").toString());
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(List.of("winnow sample: " + f + ":" + TOO_LONG), r.errLines());
     }
 
     /** The checked exit leaves a command's own code and a clean stream alone. */

@@ -1,11 +1,6 @@
 package org.winnow.producer.source;
 
-import java.io.BufferedReader;
 import java.io.IOException;
-import java.io.InputStreamReader;
-import java.nio.charset.CodingErrorAction;
-import java.nio.charset.StandardCharsets;
-import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Optional;
 import java.util.OptionalLong;
@@ -15,11 +10,14 @@ import org.winnow.geometry.ConfigurationText;
 import org.winnow.geometry.ConfigurationValidator;
 import org.winnow.pipeline.CandidateSource;
 import org.winnow.pipeline.SourceListener;
+import org.winnow.pipeline.text.BoundedLineReader;
+import org.winnow.pipeline.text.LineTooLongException;
 
 /**
  * Configurations from a text file, one a line ({@code #} comments and text after a tab ignored). A
  * line that does not parse, or is not a Calabi-Yau configuration of a supported dimension, is
- * reported with its line number and skipped; undecodable bytes make a bad line, not a crash.
+ * reported with its line number and skipped; undecodable bytes make a bad line, not a crash. A line
+ * longer than {@link BoundedLineReader#MAX_LINE} ends the run with a {@link LineTooLongException}.
  */
 public final class InputFileSource implements CandidateSource {
     private final Path file;
@@ -30,10 +28,9 @@ public final class InputFileSource implements CandidateSource {
 
     @Override
     public void run(SourceListener out) throws IOException, InterruptedException {
-        try (BufferedReader in = reader()) {
-            long lineNo = 0;
+        try (BoundedLineReader in = BoundedLineReader.open(file)) {
             for (String line = in.readLine(); line != null; line = in.readLine()) {
-                lineNo++;
+                long lineNo = in.lineNumber();
                 String body = ConfigurationText.stripComment(line);
                 if (body == null) {
                     continue;
@@ -56,29 +53,34 @@ public final class InputFileSource implements CandidateSource {
         }
     }
 
-    /** The number of non-blank, non-comment lines, counted with one cheap pass. */
+    /** The number of non-blank, non-comment lines, counted with one cheap pass, or empty if unreadable. */
     @Override
     public OptionalLong size() {
-        try (BufferedReader in = reader()) {
+        try {
+            return OptionalLong.of(count());
+        } catch (IOException e) {
+            return OptionalLong.empty();
+        }
+    }
+
+    /**
+     * The number of non-blank, non-comment lines; a {@link LineTooLongException} says the file is no
+     * text file of configurations before any work starts.
+     */
+    public long count() throws IOException {
+        try (BoundedLineReader in = BoundedLineReader.open(file)) {
             long n = 0;
             for (String line = in.readLine(); line != null; line = in.readLine()) {
                 if (ConfigurationText.stripComment(line) != null) {
                     n++;
                 }
             }
-            return OptionalLong.of(n);
-        } catch (IOException e) {
-            return OptionalLong.empty();
+            return n;
         }
     }
 
     @Override
     public String description() {
         return "input " + file;
-    }
-
-    private BufferedReader reader() throws IOException {
-        return new BufferedReader(new InputStreamReader(Files.newInputStream(file), StandardCharsets.UTF_8.newDecoder()
-                .onMalformedInput(CodingErrorAction.REPLACE).onUnmappableCharacter(CodingErrorAction.REPLACE)), 1 << 16);
     }
 }

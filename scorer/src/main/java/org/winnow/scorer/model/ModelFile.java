@@ -134,6 +134,11 @@ final class ModelFile {
     }
 
     static Payload read(Path path) throws IOException {
+        if (Files.exists(path) && !Files.isRegularFile(path)) {
+            // A device such as /dev/zero would be read until the heap is full, a directory fails obscurely.
+            throw new ModelFileException(path + ": not a regular file (a directory, a pipe or a device); give a "
+                    + ".wnm file written by winnow train");
+        }
         byte[] all;
         try {
             all = Files.readAllBytes(path);

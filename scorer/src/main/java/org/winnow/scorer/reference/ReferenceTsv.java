@@ -1,11 +1,8 @@
 package org.winnow.scorer.reference;
 
-import java.io.BufferedReader;
 import java.io.BufferedWriter;
 import java.io.IOException;
 import java.io.InputStream;
-import java.io.InputStreamReader;
-import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -16,6 +13,8 @@ import java.util.Locale;
 import org.winnow.geometry.Configuration;
 import org.winnow.geometry.ConfigurationFormatException;
 import org.winnow.geometry.ConfigurationText;
+import org.winnow.pipeline.text.BoundedLineReader;
+import org.winnow.pipeline.text.LineTooLongException;
 
 /**
  * The labelled reference file: tab-separated, a header line naming the columns
@@ -72,11 +71,15 @@ public final class ReferenceTsv {
     }
 
     static List<Row> read(InputStream bytes) throws IOException {
-        return read(new BufferedReader(new InputStreamReader(bytes, StandardCharsets.UTF_8.newDecoder()
-                .onMalformedInput(CodingErrorAction.REPLACE).onUnmappableCharacter(CodingErrorAction.REPLACE))));
+        // Bytes that are not UTF-8 become U+FFFD and are refused with their line; an endless line is refused too.
+        try (BoundedLineReader in = new BoundedLineReader(bytes, "reference")) {
+            return read(in);
+        } catch (LineTooLongException e) {
+            throw new IllegalArgumentException("line " + e.line() + ": " + e.reason(), e);
+        }
     }
 
-    static List<Row> read(BufferedReader in) throws IOException {
+    private static List<Row> read(BoundedLineReader in) throws IOException {
         List<Row> rows = new ArrayList<>();
         List<String> header = null;
         String raw;

@@ -1,6 +1,7 @@
 package org.winnow.scorer.rules;
 
 import java.io.IOException;
+import java.io.InputStream;
 import java.nio.ByteBuffer;
 import java.nio.charset.CodingErrorAction;
 import java.nio.charset.StandardCharsets;
@@ -41,11 +42,31 @@ public final class RulesFile {
 
     private RulesFile() {}
 
-    /** Reads a rules file; {@link RuleException} for a bad line, {@link IOException} for a missing file. */
+    /**
+     * The largest rules file read, 1 MiB: a few dozen lines is a long one, so anything near this is the wrong
+     * file (and {@code /dev/zero} would otherwise be read until the heap is full).
+     */
+    public static final int MAX_BYTES = 1 << 20;
+
+    /**
+     * Reads a rules file; {@link RuleException} for a bad line, a directory or a file over {@link #MAX_BYTES},
+     * {@link IOException} for a missing file. A pipe is read once, so {@code --rules-file <(...)} works.
+     */
     public static Contents read(Path file) throws IOException {
+        if (Files.isDirectory(file)) {
+            throw new RuleException(file + ": is a directory; give a text file of rules, one a line");
+        }
+        byte[] bytes;
+        try (InputStream in = Files.newInputStream(file)) {
+            bytes = in.readNBytes(MAX_BYTES + 1);
+        }
+        if (bytes.length > MAX_BYTES) {
+            throw new RuleException(file + ": longer than " + MAX_BYTES + " bytes (1 MiB), which no rules file needs;"
+                    + " is it the right file?");
+        }
         // Bytes that are not UTF-8 become U+FFFD, so the line holding them is refused with its number.
         String text = StandardCharsets.UTF_8.newDecoder().onMalformedInput(CodingErrorAction.REPLACE)
-                .onUnmappableCharacter(CodingErrorAction.REPLACE).decode(ByteBuffer.wrap(Files.readAllBytes(file)))
+                .onUnmappableCharacter(CodingErrorAction.REPLACE).decode(ByteBuffer.wrap(bytes))
                 .toString();
         // A byte-order mark from an editor would make the first rule unreadable.
         if (text.startsWith(ConfigurationText.BYTE_ORDER_MARK)) {
