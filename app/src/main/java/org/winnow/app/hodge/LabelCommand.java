@@ -180,9 +180,23 @@ public final class LabelCommand implements Callable<Integer> {
         boolean wide;
         if (es == null) {
             // A cheap first pass: the total for the ETA and, for a new output, whether it needs four-fold columns.
-            FilePass pass = prepass(fourfoldColumns == null);
+            FilePass pass = prepass();
             total = pass.lines();
-            wide = fourfoldColumns != null ? fourfoldColumns : pass.anyFourfold();
+            wide = fourfoldColumns != null ? fourfoldColumns : pass.firstFourfold() != null;
+            // Rows of another dimension than the columns were once refused one by one while the rest were
+            // labelled, with exit 0: easy to miss in a long run. Refused up front now, nothing written.
+            if (pass.firstFourfold() != null && pass.firstLower() != null) {
+                Sighting later = pass.firstFourfold().line() > pass.firstLower().line() ? pass.firstFourfold()
+                        : pass.firstLower();
+                Sighting earlier = later == pass.firstFourfold() ? pass.firstLower() : pass.firstFourfold();
+                return Exit.badInput(err, "label", in + " mixes dimensions: " + later + " after " + earlier
+                        + "; four-folds have other columns (h31 h22), so label them into a file of their own");
+            }
+            Sighting other = wide ? pass.firstLower() : pass.firstFourfold();
+            if (other != null) {
+                return Exit.badInput(err, "label", in + " " + other + " does not fit the " + (wide ? "four-fold"
+                        : "three-fold") + " columns of " + out + "; label it into another --out");
+            }
         } else {
             boolean four = es.bounds().dim() == 4;
             if (fourfoldColumns != null && fourfoldColumns != four) {
@@ -323,18 +337,32 @@ public final class LabelCommand implements Callable<Integer> {
         }
     }
 
-    private record FilePass(long lines, boolean anyFourfold) {}
-
     private static BoundedLineReader open(Path file) throws IOException {
         // Bytes that are not UTF-8 become U+FFFD: that line is refused with its number, the rest is read.
         return BoundedLineReader.open(file);
     }
 
-    /** Counts the input lines that are not comments and, if asked, whether any parses as a four-fold. */
-    private FilePass prepass(boolean lookForFourfolds) throws IOException {
+    /** A line of the input: its number, its text and the dimension of its configuration. */
+    private record Sighting(int line, String text, int dim) {
+        @Override
+        public String toString() {
+            return "line " + line + " '" + Limits.excerpt(text) + "' (dimension " + dim + ")";
+        }
+    }
+
+    /** The count of input lines that are not comments, and the first four-fold and first lower-dimension line. */
+    private record FilePass(long lines, Sighting firstFourfold, Sighting firstLower) {}
+
+    /**
+     * Counts the input lines that are not comments and finds the first four-fold and the first configuration
+     * of a lower dimension among the lines that will be labelled, so that a file mixing them (whose rows
+     * cannot share one set of columns) is refused before any work.
+     */
+    private FilePass prepass() throws IOException {
         long lines = 0;
         int number = 0;
-        boolean four = false;
+        Sighting four = null;
+        Sighting lower = null;
         try (BoundedLineReader reader = open(in)) {
             String line;
             while ((line = reader.readLine()) != null) {
@@ -344,18 +372,29 @@ public final class LabelCommand implements Callable<Integer> {
                     continue;
                 }
                 lines++;
-                if (lookForFourfolds && !four) {
-                    try {
-                        four = ConfigurationText.parse(body.strip(), number).dimension() == 4;
-                    } catch (ConfigurationFormatException e) {
-                        // Reported with its line number by the main pass.
-                    }
+                if (four != null && lower != null) {
+                    continue;
+                }
+                String text = body.strip();
+                Configuration c;
+                try {
+                    c = ConfigurationText.parse(text, number);
+                } catch (ConfigurationFormatException e) {
+                    continue; // reported with its line number by the main pass
+                }
+                if (ConfigurationValidator.problemForCalabiYau(c).isPresent() || c.dimension() < 2) {
+                    continue; // likewise
+                }
+                if (c.dimension() == 4 && four == null) {
+                    four = new Sighting(number, text, 4);
+                } else if (c.dimension() < 4 && lower == null) {
+                    lower = new Sighting(number, text, c.dimension());
                 }
             }
         } catch (NoSuchFileException e) {
             throw new IllegalArgumentException(in + ": no such file", e);
         }
-        return new FilePass(lines, four);
+        return new FilePass(lines, four, lower);
     }
 
     private void readInput(Set<String> done, Consumer<Configuration> offer, Counts counts) throws IOException {

@@ -112,9 +112,27 @@ public final class SampleCommand implements Callable<Integer> {
                 classes.add(r.hodge()[0]);
             }
         }
+        if (sample.isEmpty()) {
+            // A header-only file with exit 0 would pass for a sample; nobody trains on nothing on purpose.
+            return Exit.badInput(err, "sample", pool.isEmpty()
+                    ? reference + ": no exact row to sample from (" + rows.size() + " rows, " + leftOut
+                            + " products left out" + (products ? "" : "; --products keeps them") + ")"
+                    : "--fraction " + fraction + " with --min-per-class " + minPerClass + " picks no row of the "
+                            + pool.size() + " exact rows; raise --fraction or --min-per-class");
+        }
+        Set<Integer> poolClasses = new HashSet<>();
+        for (ReferenceTsv.Row r : pool) {
+            poolClasses.add(r.hodge()[0]);
+        }
         ReferenceTsv.write(out, sample);
         err.printf(Locale.ROOT, "winnow sample: %d of %d exact rows (%d h11 classes), %d products left out%n", sample.size(),
                 pool.size(), classes.size(), leftOut);
+        if (classes.size() < poolClasses.size()) {
+            // Only with --min-per-class 0 can a class drop out; a model never predicts a class it was not shown.
+            err.printf(Locale.ROOT, "winnow sample: warning: %d of the %d h11 classes have no row in the sample "
+                    + "(--min-per-class %d); a model trained on it cannot predict them%n",
+                    poolClasses.size() - classes.size(), poolClasses.size(), minPerClass);
+        }
         err.flush();
         return 0;
     }

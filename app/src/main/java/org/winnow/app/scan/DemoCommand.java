@@ -75,7 +75,16 @@ public final class DemoCommand implements Callable<Integer> {
                 return Exit.badInput(err, "demo", "missing demo file " + p + " (give --data DIR, the folder demo-data of the project)");
             }
         }
-        Files.createDirectories(out);
+        if (Files.exists(out) && !Files.isDirectory(out)) {
+            return Exit.badInput(err, "demo", "--out " + out + ": exists and is not a directory; the demo writes its "
+                    + "scan into a directory (" + out.resolve("scan") + "), give another --out DIR");
+        }
+        try {
+            Files.createDirectories(out);
+        } catch (IOException e) {
+            return Exit.badInput(err, "demo", "--out " + out + ": cannot create the directory ("
+                    + ScanFiles.describe(e) + ")");
+        }
         Path scanDir = out.resolve("scan");
         o.println("winnow demo: scanning every " + demo.space() + " configuration matrix (rule set lossless"
                 + (maxRows == null ? "" : ", at most " + maxRows + " rows") + ") as the producer enumerates it, with model "
@@ -95,7 +104,15 @@ public final class DemoCommand implements Callable<Integer> {
         if (rc != 0) {
             return rc;
         }
-        List<SurvivorLine> survivors = readSurvivors(scanDir);
+        List<SurvivorLine> survivors;
+        try {
+            survivors = readSurvivors(scanDir);
+        } catch (IOException e) {
+            // The scan itself succeeded; its files changed under us (another process, a full disk).
+            err.println("winnow demo: cannot read the survivors back: " + e.getMessage());
+            err.flush();
+            return Exit.STOPPED;
+        }
         survivors.sort(Comparator.comparingDouble(SurvivorLine::novelty).reversed().thenComparing(SurvivorLine::config));
         o.println();
         o.println("most novel survivors (novelty near 1 = unlike the reference):");

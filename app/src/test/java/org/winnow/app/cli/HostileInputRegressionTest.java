@@ -314,6 +314,23 @@ class HostileInputRegressionTest {
         assertEquals(List.of("winnow sample: " + f + ":" + TOO_LONG), r.errLines());
     }
 
+    /** {@code winnow demo --out FILE} on an existing regular file threw a stack trace from creating the directory. */
+    @Test
+    void demoOutThatIsAFileIsRefusedInOneLineAndTheFileKept(@TempDir Path tmp) throws Exception {
+        Path file = Files.writeString(tmp.resolve("notes.txt"), "mine\n");
+        Run r = winnow("demo", "--out", file.toString(), "--data", "../demo-data");
+        assertEquals(Exit.BAD_INPUT, r.exit());
+        assertEquals(List.of("winnow demo: --out " + file + ": exists and is not a directory; the demo writes its scan"
+                + " into a directory (" + file.resolve("scan") + "), give another --out DIR"), r.errLines());
+        assertEquals("mine\n", Files.readString(file));
+        Path below = file.resolve("sub");
+        Run r2 = winnow("demo", "--out", below.toString(), "--data", "../demo-data");
+        assertEquals(Exit.BAD_INPUT, r2.exit());
+        assertEquals(1, r2.errLines().size(), r2.err());
+        assertTrue(r2.err().startsWith("winnow demo: --out " + below + ": cannot create the directory ("), r2.err());
+        assertEquals("", r.out() + r2.out(), "nothing started");
+    }
+
     /** The checked exit leaves a command's own code and a clean stream alone. */
     @Test
     void aCleanStreamKeepsTheCommandsExitCode() {

@@ -1,6 +1,7 @@
 package org.winnow.app.hodge;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
@@ -149,6 +150,32 @@ class LabelFromBoundsTest {
         assertEquals(Exit.BAD_INPUT, wrongWidth.exit());
         assertEquals(List.of("winnow label: " + three + " has three-fold columns but the space has dimension 4"),
                 wrongWidth.err());
+    }
+
+    /**
+     * A file mixing four-folds and three-folds used to be labelled in part with exit 0, the other dimension's
+     * lines refused one by one among the progress lines. Refused up front now, naming both lines, nothing written.
+     */
+    @Test
+    void aFileMixingDimensionsIsRefusedUpFrontNamingTheLines(@TempDir Path dir) throws IOException {
+        Path in = Files.writeString(dir.resolve("mixed.txt"), "# three-folds first\n4:5\n5:6\n2:3/2:3\n");
+        Path out = dir.resolve("out.tsv");
+        Run mixed = run("label", "--in", in.toString(), "--out", out.toString());
+        assertEquals(Exit.BAD_INPUT, mixed.exit());
+        assertEquals(List.of("winnow label: " + in + " mixes dimensions: line 3 '5:6' (dimension 4) after line 2 '4:5' "
+                + "(dimension 3); four-folds have other columns (h31 h22), so label them into a file of their own"),
+                mixed.err());
+        assertFalse(Files.exists(out), "nothing written");
+        // Into an existing output of the other width: refused naming the line, the output left as it was.
+        Path threes = Files.writeString(dir.resolve("threes.txt"), "4:5\n");
+        assertEquals(0, run("label", "--in", threes.toString(), "--out", out.toString()).exit());
+        String before = Files.readString(out);
+        Path fours = Files.writeString(dir.resolve("fours.txt"), "\n5:6\n");
+        Run wrong = run("label", "--in", fours.toString(), "--out", out.toString());
+        assertEquals(Exit.BAD_INPUT, wrong.exit());
+        assertEquals(List.of("winnow label: " + fours + " line 2 '5:6' (dimension 4) does not fit the three-fold columns"
+                + " of " + out + "; label it into another --out"), wrong.err());
+        assertEquals(before, Files.readString(out));
     }
 
     @Test

@@ -75,4 +75,44 @@ class SampleCommandTest {
         assertEquals(Exit.BAD_INPUT, run("sample", "--reference", all.toString(), "--out", again.toString(), "--fraction",
                 "0"));
     }
+
+    /**
+     * {@code --min-per-class 0} with a fraction too small for any class wrote a header-only file with exit 0;
+     * refused now, and a class that drops out is named in a warning.
+     */
+    @Test
+    void aSampleWithNoRowIsRefusedAndADroppedClassIsWarnedAbout(@TempDir Path dir) throws IOException {
+        // Hodge numbers of the quintic, the (3,3) and (2,4) complete intersections in P^5 and the bicubic in
+        // P^2 x P^2: standard values, from memory.
+        Path ref = Files.writeString(dir.resolve("ref.tsv"), "config\th11\th21\tstatus\tsource\n"
+                + "4:5\t1\t101\texact\tcomputed\n5:3,3\t1\t73\texact\tcomputed\n5:2,4\t1\t89\texact\tcomputed\n"
+                + "2:3/2:3\t2\t83\texact\tcomputed\n");
+        Path out = dir.resolve("sample.tsv");
+        StringWriter err = new StringWriter();
+        CommandLine cl = WinnowCli.commandLine();
+        cl.setOut(new PrintWriter(new StringWriter(), true));
+        cl.setErr(new PrintWriter(err, true));
+        assertEquals(Exit.BAD_INPUT, cl.execute("sample", "--reference", ref.toString(), "--out", out.toString(),
+                "--fraction", "0.01", "--min-per-class", "0"));
+        assertEquals("winnow sample: --fraction 0.01 with --min-per-class 0 picks no row of the 4 exact rows; raise "
+                + "--fraction or --min-per-class\n", err.toString());
+        assertTrue(Files.notExists(out), "no header-only file");
+        // round(0.4 * 3) = 1 of h11 = 1, round(0.4 * 1) = 0 of h11 = 2.
+        StringWriter err2 = new StringWriter();
+        cl.setErr(new PrintWriter(err2, true));
+        assertEquals(0, cl.execute("sample", "--reference", ref.toString(), "--out", out.toString(), "--fraction",
+                "0.4", "--min-per-class", "0"));
+        assertEquals(2, Files.readAllLines(out).size());
+        assertEquals(List.of("winnow sample: 1 of 4 exact rows (1 h11 classes), 0 products left out",
+                "winnow sample: warning: 1 of the 2 h11 classes have no row in the sample (--min-per-class 0); a model"
+                        + " trained on it cannot predict them"), List.of(err2.toString().split("\n")));
+        Path none = Files.writeString(dir.resolve("bounded.tsv"), "config\th11\th21\tstatus\tsource\n"
+                + "4:5\t1\t101\tbounded\tcomputed\n");
+        StringWriter err3 = new StringWriter();
+        cl.setErr(new PrintWriter(err3, true));
+        assertEquals(Exit.BAD_INPUT, cl.execute("sample", "--reference", none.toString(), "--out",
+                dir.resolve("s2.tsv").toString(), "--fraction", "1"));
+        assertEquals("winnow sample: " + none + ": no exact row to sample from (1 rows, 0 products left out; --products"
+                + " keeps them)\n", err3.toString());
+    }
 }
