@@ -579,7 +579,7 @@ public final class LabelCommand implements Callable<Integer> {
         }
 
         private synchronized void printLine() {
-            plain.println(line(counts, total, startNanos));
+            plain.println(line(counts, total, startNanos, System.nanoTime()));
             plain.flush();
             lastLineNanos = System.nanoTime();
         }
@@ -596,15 +596,18 @@ public final class LabelCommand implements Callable<Integer> {
             }
         }
 
-        static String line(Counts counts, long total, long startNanos) {
-            double seconds = (System.nanoTime() - startNanos) / 1e9;
+        static String line(Counts counts, long total, long startNanos, long nowNanos) {
+            double seconds = (nowNanos - startNanos) / 1e9;
             long settled = counts.settled();
             double rate = settled / Math.max(seconds, 1e-9);
+            // Until the first input is settled there is no rate to show, and an ETA from a rate of 0 is endless.
+            boolean measured = settled > 0;
             String of = total >= 0
-                    ? String.format(Locale.ROOT, " of %d (%.1f%%), ETA %.0f s", total,
-                            100.0 * settled / Math.max(total, 1), Math.max(0, total - settled) / Math.max(rate, 1e-9))
+                    ? String.format(Locale.ROOT, " of %d (%.1f%%), ETA %s s", total, 100.0 * settled / Math.max(total, 1),
+                            measured ? String.format(Locale.ROOT, "%.0f", Math.max(0, total - settled) / rate) : "--")
                     : " (enumerated " + counts.enumerated.get() + ", total not known yet)";
-            return String.format(Locale.ROOT, "winnow label: %d done%s, %.0f/s, %.0f s", settled, of, rate, seconds);
+            return String.format(Locale.ROOT, "winnow label: %d done%s, %s/s, %.0f s", settled, of,
+                    measured ? String.format(Locale.ROOT, "%.0f", rate) : "--", seconds);
         }
     }
 }

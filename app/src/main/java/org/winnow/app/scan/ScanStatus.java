@@ -22,6 +22,8 @@ public final class ScanStatus {
     private long lastNanos = -1;
     private double lastScored;
     private double rate;
+    /** Whether {@link #rate} rests on an interval yet; before that the line shows "--/s", not a made-up 0. */
+    private boolean measured;
 
     /**
      * @param source the source's counts so far (null before the run has started)
@@ -73,7 +75,8 @@ public final class ScanStatus {
         }
         if (lastNanos >= 0 && nowNanos > lastNanos) {
             double instant = (scored - lastScored) / ((nowNanos - lastNanos) / 1e9);
-            rate = rate == 0 ? instant : 0.7 * rate + 0.3 * instant;
+            rate = measured ? 0.7 * rate + 0.3 * instant : instant;
+            measured = true;
         }
         lastNanos = nowNanos;
         lastScored = scored;
@@ -85,8 +88,8 @@ public final class ScanStatus {
             }
         }
         StringBuilder sb = new StringBuilder();
-        sb.append(String.format(Locale.ROOT, "%,d scored, %,.0f/s, rejected %s", (long) scored, rate,
-                percent(rejected, scored)));
+        sb.append(String.format(Locale.ROOT, "%,d scored, %s/s, rejected %s", (long) scored,
+                measured ? String.format(Locale.ROOT, "%,.0f", rate) : "--", percent(rejected, scored)));
         if (reasons.length() > 0) {
             sb.append(" (").append(reasons).append(')');
         }

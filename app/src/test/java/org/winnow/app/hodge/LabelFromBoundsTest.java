@@ -107,13 +107,27 @@ class LabelFromBoundsTest {
         assertEquals(expected, sorted(out));
     }
 
+    /** The first status line of a slow run showed "0/s" and an ETA of billions of seconds before anything was done. */
+    @Test
+    void theStatusShowsNoRateAndNoEtaUntilSomethingIsDone() {
+        LabelCommand.Counts counts = new LabelCommand.Counts();
+        assertEquals("winnow label: 0 done of 61 (0.0%), ETA -- s, --/s, 10 s",
+                LabelCommand.Progress.line(counts, 61, 0, 10_000_000_000L));
+        assertEquals("winnow label: 0 done (enumerated 0, total not known yet), --/s, 10 s",
+                LabelCommand.Progress.line(counts, -1, 0, 10_000_000_000L));
+        counts.exact.addAndGet(20);
+        assertEquals("winnow label: 20 done of 61 (32.8%), ETA 21 s, 2/s, 10 s",
+                LabelCommand.Progress.line(counts, 61, 0, 10_000_000_000L));
+    }
+
     @Test
     void aPipedRunWritesPlainStatusLinesWithTheTotalAndAnEta(@TempDir Path dir) throws IOException {
         Path out = dir.resolve("labels.tsv");
         Run r = run("label", "--dim", "3", "--max-rows", "2", "--out", out.toString(), "--threads", "1",
                 "--expect", "61", "--status-every-ms", "2");
         assertEquals(0, r.exit(), String.join("\n", r.err()));
-        Pattern status = Pattern.compile("winnow label: \\d+ done of 61 \\(\\d+\\.\\d%\\), ETA \\d+ s, \\d+/s, \\d+ s");
+        Pattern status = Pattern.compile("winnow label: (0 done of 61 \\(0\\.0%\\), ETA -- s, --/s"
+                + "|[1-9]\\d* done of 61 \\(\\d+\\.\\d%\\), ETA \\d+ s, \\d+/s), \\d+ s");
         List<String> statusLines = new ArrayList<>();
         for (String l : r.err().subList(0, r.err().size() - 1)) {
             assertTrue(status.matcher(l).matches(), "only status lines before the summary: " + l);

@@ -8,12 +8,20 @@ import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+import java.util.stream.Stream;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.app.cli.Exit;
 import org.winnow.app.cli.WinnowCli;
 import org.winnow.sink.Manifest;
+import org.winnow.sink.ScanDirectory;
 import org.winnow.sink.ScanFiles;
+import org.winnow.sink.SurvivorLine;
 import picocli.CommandLine;
 
 /** What a new four-fold user ran into, each as a regression. */
@@ -92,5 +100,33 @@ class FourfoldUserTest {
         Run r = winnow("scan", "--input", input.toString(), "--model", model.toString(), "--out",
                 dir.resolve("s").toString(), "--keep", "rows=7..", "--keep", "h31=100..300");
         assertEquals(0, r.exit(), r.err());
+    }
+
+    /**
+     * A candidate of another dimension than the model's was shown with a reference of the model's dimension as
+     * its nearest one, as if the two were alike. Such a candidate names no reference now ({@code -}), while one of
+     * the model's dimension in the same file still does.
+     */
+    @Test
+    void aCandidateOfAnotherDimensionNamesNoNearestReference(@TempDir Path dir) throws Exception {
+        Path model = ScanFixtures.saveModel(dir);
+        Path input = Files.writeString(dir.resolve("in.txt"), "4:5\n5:6\n");
+        Path out = dir.resolve("s");
+        Run r = winnow("scan", "--input", input.toString(), "--model", model.toString(), "--out", out.toString());
+        assertEquals(0, r.exit(), r.err());
+        Map<String, String> nearest = new HashMap<>();
+        for (SurvivorLine s : ScanDirectory.read(out).survivors()) {
+            nearest.put(s.config(), s.nearestReference());
+        }
+        assertEquals(Set.of("4:5", "5:6"), nearest.keySet(), "both kept (no rules)");
+        assertEquals("", nearest.get("5:6"), "a four-fold next to a three-fold model");
+        assertFalse(nearest.get("4:5").isEmpty(), "a three-fold still names its nearest three-fold");
+        List<String> lines = new ArrayList<>();
+        try (Stream<Path> files = Files.list(out)) {
+            for (Path f : files.filter(f -> f.getFileName().toString().startsWith(ScanFiles.SURVIVORS)).toList()) {
+                lines.addAll(Files.readAllLines(f));
+            }
+        }
+        assertTrue(lines.stream().anyMatch(l -> l.startsWith("5:6\t") && l.endsWith("\t-")), String.join("\n", lines));
     }
 }

@@ -181,7 +181,8 @@ class ScanJobTest {
         var metrics = new org.winnow.pipeline.metrics.ScorerMetrics(reg);
         ScanStatus st = new ScanStatus(reg, () -> new org.winnow.pipeline.SourceReport(0, 0, 0, 0, 0, List.of(), false),
                 OptionalLong.of(1000));
-        st.line(0);
+        // No interval yet: no rate and no ETA, rather than "0/s".
+        assertEquals("0 scored, --/s, rejected 0.0%, kept as novel 0", st.line(0));
         var cfg = org.winnow.geometry.Configuration.parse("4:5");
         var cand = new org.winnow.pipeline.Candidate(cfg, "4:5", 0, 0);
         var inv = new org.winnow.pipeline.ExactInvariants(3, -200, 1, 1, 1);
@@ -194,5 +195,8 @@ class ScanJobTest {
         // 100 scored in 2 s: 50/s; 900 left: 18 s.
         assertEquals("100 scored, 50/s, rejected 30.0% (exact-chi-out-of-range 30.0%), kept as novel 10, ETA 0:00:18",
                 st.line(2_000_000_000L));
+        // A measured standstill is a rate: 0 in the next interval blends into 0.7 * 50 = 35/s.
+        String still = st.line(3_000_000_000L);
+        assertTrue(still.startsWith("100 scored, 35/s, "), still);
     }
 }

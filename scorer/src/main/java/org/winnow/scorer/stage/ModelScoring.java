@@ -88,12 +88,13 @@ public final class ModelScoring implements ScoringFunctions {
                     return p;
                 }
                 // The model's vote says nothing about another dimension; the candidate's own proofs still hold.
+                // Nor is a reference of the model's dimension "near" it: naming one misled readers, so none is named.
                 TupleEstimate t = predictor.tuple();
                 if (t == null) {
-                    return new Prediction(p.h11(), 0, null, null, null, 1.0, p.nearestReference());
+                    return new Prediction(p.h11(), 0, null, null, null, 1.0, "");
                 }
                 return new Prediction(unvoted(t.h11()), unvoted(t.h21()), unvoted(t.h31()), unvoted(t.h22()), t.product(),
-                        1.0, p.nearestReference());
+                        1.0, "");
             }
 
             @Override
