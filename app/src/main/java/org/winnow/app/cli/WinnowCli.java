@@ -43,6 +43,9 @@ import picocli.CommandLine;
             org.winnow.app.report.ReportCommand.class,
         })
 public final class WinnowCli implements Runnable {
+    /** Longest option error shown; picocli quotes the offending argument whole. */
+    private static final int MESSAGE = 300;
+
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;
 
@@ -51,11 +54,40 @@ public final class WinnowCli implements Runnable {
         spec.commandLine().usage(System.err);
     }
 
-    /** Builds the command line with the project's conventions (exit 2 on bad options). */
+    /** Builds the command line with the project's conventions (exit 2 on bad options, said in one line). */
     public static CommandLine commandLine() {
         CommandLine cl = new CommandLine(new WinnowCli());
         cl.setCaseInsensitiveEnumValuesAllowed(true);
+        cl.setParameterExceptionHandler(WinnowCli::badOption);
         return cl;
+    }
+
+    /**
+     * An option picocli cannot take (unknown, missing, not a number, out of an int's range): one line naming it
+     * and where the options are listed, like every other refusal, instead of the message and the whole usage.
+     */
+    static int badOption(CommandLine.ParameterException e, String[] args) {
+        CommandLine c = e.getCommandLine();
+        String name = c.getCommandSpec().qualifiedName(" ");
+        String message = e.getMessage() == null ? e.toString() : e.getMessage().strip();
+        int newline = message.indexOf('\n');
+        if (newline >= 0) {
+            message = message.substring(0, newline).strip();
+        }
+        // The message quotes the user's argument, which may hold anything: control characters would break the
+        // one line, and a pasted file would flood the terminal.
+        message = message.replaceAll("\\p{Cntrl}", "?");
+        if (message.length() > MESSAGE) {
+            message = message.substring(0, MESSAGE) + "... (" + message.length() + " characters)";
+        }
+        String hint = " (" + name + " --help lists the " + (c.getCommandSpec().subcommands().isEmpty() ? "options)"
+                : "commands)");
+        if (!name.startsWith("winnow ")) {
+            c.getErr().println(name + ": " + message + hint);
+            c.getErr().flush();
+            return Exit.BAD_INPUT;
+        }
+        return Exit.badInput(c.getErr(), name.substring("winnow ".length()), message + hint);
     }
 
     public static void main(String[] args) {

@@ -71,11 +71,11 @@ public final class ScanCommand implements Callable<Integer> {
 
     @Option(names = "--keep", paramLabel = "INVARIANT=LO..HI",
             description = "Keep range (repeatable): h11, h21, h31, h22 (predicted); chi, rows, cols, dim, blocks (exact). "
-                    + "LO.. and ..HI are one-sided; a single value means LO = HI; chi%M=R keeps chi = R mod M.")
+                    + "LO.. and ..HI are one-sided; a single value means LO = HI; chi%%M=R keeps chi = R mod M.")
     List<String> keeps = new ArrayList<>();
 
     @Option(names = "--rules-file", paramLabel = "F",
-            description = "Rules, one a line: 'keep INVARIANT=LO..HI', 'keep chi%M=R', 'min-confidence X', 'novelty X'.")
+            description = "Rules, one a line: 'keep INVARIANT=LO..HI', 'keep chi%%M=R', 'min-confidence X', 'novelty X'.")
     Path rulesFile;
 
     @Option(names = "--min-confidence", paramLabel = "X",

@@ -1,7 +1,10 @@
 package org.winnow.app.cli;
 
+import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import java.io.PrintWriter;
+import java.io.StringWriter;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
@@ -65,6 +68,30 @@ class HelpSummaryTest {
             }
         }
         assertTrue(bad.isEmpty(), "description lines that stop mid-sentence: " + bad);
+    }
+
+    /**
+     * picocli formats every description with {@code String.format}: a bare {@code %} (as in {@code chi%M=R}) made
+     * {@code scan --help} and every refused scan print two "[picocli WARN] Could not format" lines on stderr.
+     */
+    @Test
+    void everyHelpScreenRendersWithoutAPicocliWarning() {
+        java.io.PrintStream saved = System.err;
+        java.io.ByteArrayOutputStream warnings = new java.io.ByteArrayOutputStream();
+        int checked = 0;
+        StringWriter help = new StringWriter();
+        try {
+            System.setErr(new java.io.PrintStream(warnings, true, java.nio.charset.StandardCharsets.UTF_8));
+            for (CommandLine c : WinnowCli.commandLine().getSubcommands().values()) {
+                c.usage(new PrintWriter(help));
+                checked++;
+            }
+        } finally {
+            System.setErr(saved);
+        }
+        assertTrue(checked >= 16, "only " + checked + " commands");
+        assertTrue(help.toString().contains("chi%M=R keeps chi = R mod M."), "scan's --keep help shows the residue rule");
+        assertEquals("", warnings.toString(java.nio.charset.StandardCharsets.UTF_8));
     }
 
     static boolean isWholeSentence(String s) {

@@ -331,6 +331,32 @@ class HostileInputRegressionTest {
         assertEquals("", r.out() + r2.out(), "nothing started");
     }
 
+    /**
+     * An option picocli could not take printed its message and then the whole usage screen (30 lines for scan);
+     * now one line naming the option and where the options are listed, exit 2, as every other refusal.
+     */
+    @Test
+    void anOptionThatCannotBeParsedIsRefusedInOneLine() {
+        Run big = winnow("demo", "--dim", "4", "--max-rows", "99999999999");
+        assertEquals(Exit.BAD_INPUT, big.exit());
+        assertEquals(List.of("winnow demo: Invalid value for option '--max-rows': '99999999999' is not an int (winnow "
+                + "demo --help lists the options)"), big.errLines());
+        Run missing = winnow("scan", "--dim", "4");
+        assertEquals(Exit.BAD_INPUT, missing.exit());
+        assertEquals(List.of("winnow scan: Missing required options: '--model=M', '--out=DIR' (winnow scan --help lists"
+                + " the options)"), missing.errLines());
+        Run unknown = winnow("labl", "--dim", "4");
+        assertEquals(Exit.BAD_INPUT, unknown.exit());
+        assertEquals(1, unknown.errLines().size(), unknown.err());
+        assertTrue(unknown.err().startsWith("winnow: Unmatched arguments from index 0: 'labl', '--dim', '4'"),
+                unknown.err());
+        assertTrue(unknown.err().endsWith("(winnow --help lists the commands)\n"), unknown.err());
+        Run control = winnow("hodge", "--threads", "2\n3");
+        assertEquals(List.of("winnow hodge: Invalid value for option '--threads': '2?3' is not an int (winnow hodge "
+                + "--help lists the options)"), control.errLines());
+        assertEquals("", big.out() + missing.out() + unknown.out() + control.out());
+    }
+
     /** The checked exit leaves a command's own code and a clean stream alone. */
     @Test
     void aCleanStreamKeepsTheCommandsExitCode() {
