@@ -94,7 +94,14 @@ public final class ConfigurationText {
         }
     }
 
-    /** Strips a {@code #} comment; returns null when nothing but blanks remains. */
+    /** The first column's name in the header of winnow's tab-separated files (survivors, rejects, references). */
+    public static final String HEADER_FIRST_COLUMN = "config";
+
+    /**
+     * Strips a {@code #} comment; returns null when nothing but blanks remains, or for the header line of a
+     * tab-separated file whose first column is {@value #HEADER_FIRST_COLUMN}, so that a survivors, rejects or
+     * reference file can be given as a file of configurations (the header was refused as a bad line).
+     */
     public static String stripComment(String line) {
         int hash = line.indexOf('#');
         String body = hash >= 0 ? line.substring(0, hash) : line;
@@ -102,6 +109,9 @@ public final class ConfigurationText {
         int tab = body.indexOf('\t');
         if (tab >= 0) {
             body = body.substring(0, tab);
+            if (body.replace(BYTE_ORDER_MARK, "").strip().equals(HEADER_FIRST_COLUMN)) {
+                return null;
+            }
         }
         return body.isBlank() ? null : body;
     }

@@ -7,6 +7,18 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import org.junit.jupiter.api.Test;
 
 class ConfigurationTextTest {
+    /** winnow's own tab-separated files start with a "config" header; read as input it is skipped, not refused. */
+    @Test
+    void theHeaderOfATabSeparatedFileIsNoConfigurationButOtherTextStaysBad() {
+        assertEquals(null, ConfigurationText.stripComment("config\tchi\th11"));
+        assertEquals(null, ConfigurationText.stripComment(ConfigurationText.BYTE_ORDER_MARK + "config\th11\th21"));
+        assertEquals(null, ConfigurationText.stripComment("  # a comment\t4:5"));
+        assertEquals("4:5", ConfigurationText.stripComment("4:5\t-200\t1"));
+        // Without a tab it is no header: the word is a bad line the reader reports.
+        assertEquals("config", ConfigurationText.stripComment("config"));
+        assertEquals("configs", ConfigurationText.stripComment("configs\tx"));
+    }
+
     @Test
     void parsesAndWritesBackTheExamplesOfTheFormat() {
         for (String text : new String[] {"4:5", "2:3/2:3", "3:3,0,1/3:0,3,1", "2:3,0/2:0,3/1:1,1"}) {

@@ -70,10 +70,6 @@ public final class WinnowCli implements Runnable {
         CommandLine c = e.getCommandLine();
         String name = c.getCommandSpec().qualifiedName(" ");
         String message = e.getMessage() == null ? e.toString() : e.getMessage().strip();
-        int newline = message.indexOf('\n');
-        if (newline >= 0) {
-            message = message.substring(0, newline).strip();
-        }
         // The message quotes the user's argument, which may hold anything: control characters would break the
         // one line, and a pasted file would flood the terminal.
         message = message.replaceAll("\\p{Cntrl}", "?");

@@ -72,15 +72,21 @@ final class ConfigurationInputs {
                     ProgressBar bar = progress.apply(name)) {
                 String line;
                 int number = 0;
+                long visited = 0;
                 while ((line = reader.readLine()) != null) {
                     number++;
                     String body = ConfigurationText.stripComment(line);
                     if (body != null) {
+                        visited++;
                         visitor.visit(body, number, name + " line " + number);
                     }
                     if (bar != null) {
                         bar.step();
                     }
+                }
+                if (visited == 0) {
+                    // Nothing printed and exit 0 would look like a run over a file that had nothing to report.
+                    unreadable.report(name, "no configuration in it (empty, or only blank, comment and header lines)");
                 }
             } catch (LineTooLongException e) {
                 unreadable.report(name + " line " + e.line(), e.reason());

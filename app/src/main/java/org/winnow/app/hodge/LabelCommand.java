@@ -181,6 +181,11 @@ public final class LabelCommand implements Callable<Integer> {
         if (es == null) {
             // A cheap first pass: the total for the ETA and, for a new output, whether it needs four-fold columns.
             FilePass pass = prepass();
+            if (pass.lines() == 0) {
+                // Exit 0 and a header-only output would pass for a finished labelling.
+                return Exit.badInput(err, "label", in + ": no configuration in it (empty, or only blank and comment "
+                        + "lines); nothing to label");
+            }
             total = pass.lines();
             wide = fourfoldColumns != null ? fourfoldColumns : pass.firstFourfold() != null;
             // Rows of another dimension than the columns were once refused one by one while the rest were

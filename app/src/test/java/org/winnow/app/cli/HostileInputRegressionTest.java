@@ -357,6 +357,44 @@ class HostileInputRegressionTest {
         assertEquals("", big.out() + missing.out() + unknown.out() + control.out());
     }
 
+    /**
+     * The demo ends with "compute the survivors exactly with winnow hodge --file SURVIVORS", and that refused the
+     * file's header as a bad line with exit 2; a header whose first column is "config" is skipped now.
+     */
+    @Test
+    void aSurvivorsFileIsAFileOfConfigurations(@TempDir Path tmp) throws Exception {
+        Path f = Files.writeString(tmp.resolve("survivors-00001.tsv"), "# winnow survivors, format 2\n"
+                + "config\tchi\th11\tnovelty\n4:5\t-200\t1\t0.5\n");
+        Run r = winnow("hodge", "--file", f.toString());
+        assertEquals(0, r.exit(), r.err());
+        assertEquals("", r.err());
+        assertTrue(r.out().startsWith("4:5 "), r.out());
+        assertEquals(1, r.out().lines().count());
+    }
+
+    /** An empty input (or one of comments only) gave exit 0 and nothing, and label wrote a header-only file. */
+    @Test
+    void anInputWithoutAnyConfigurationIsRefused(@TempDir Path tmp) throws Exception {
+        Path empty = Files.writeString(tmp.resolve("empty.txt"), "");
+        Path comments = Files.writeString(tmp.resolve("comments.txt"), "\n# nothing yet\n\r\n");
+        for (Path f : List.of(empty, comments)) {
+            Run h = winnow("hodge", "--file", f.toString());
+            assertEquals(Exit.BAD_INPUT, h.exit());
+            assertEquals(List.of("winnow hodge: " + f + ": no configuration in it (empty, or only blank, comment and "
+                    + "header lines)"), h.errLines());
+            Run i = winnow("invariants", "4:5", "--file", f.toString());
+            assertEquals(Exit.BAD_INPUT, i.exit());
+            assertEquals(1, i.errLines().size(), i.err());
+            assertTrue(i.out().startsWith("4:5 "), "the argument is still done: " + i.out());
+            Path out = tmp.resolve("labels.tsv");
+            Run l = winnow("label", "--in", f.toString(), "--out", out.toString());
+            assertEquals(Exit.BAD_INPUT, l.exit());
+            assertEquals(List.of("winnow label: " + f + ": no configuration in it (empty, or only blank and comment "
+                    + "lines); nothing to label"), l.errLines());
+            assertFalse(Files.exists(out), "no header-only output");
+        }
+    }
+
     /** The checked exit leaves a command's own code and a clean stream alone. */
     @Test
     void aCleanStreamKeepsTheCommandsExitCode() {
