@@ -86,6 +86,11 @@ public final class TrainCommand implements Callable<Integer> {
         if (Limits.threadsProblem(threads) != null) {
             return Exit.badInput(err, "train", Limits.threadsProblem(threads));
         }
+        if (epochs == 0) {
+            // Zero epochs wrote an untrained model with exit 0 and "final loss: NaN"; a random embedding is not
+            // a model anyone asks for on purpose (the library still allows it, for baselines).
+            return Exit.badInput(err, "train", "--epochs must be at least 1, got 0");
+        }
         try {
             holdoutClass = ReferenceLoader.holdoutClass(holdout);
             Architecture shape = Architecture.defaults(dim);

@@ -253,6 +253,11 @@ public final class ScanCommand implements Callable<Integer> {
             } catch (IOException e) {
                 throw new StartupException("--input " + input + ": cannot read (" + ScanFiles.describe(e) + ")");
             }
+            if (lines == 0) {
+                // A scan of nothing completed with exit 0, as if the file had been scanned and all rejected.
+                throw new StartupException("--input " + input + ": no configuration in it (empty, or only blank, "
+                        + "comment and header lines)");
+            }
             long limit = SeenKeys.limitForThisHeap();
             if (lines > limit) {
                 throw new StartupException("--input " + input + ": " + KeyLimitException.message(

@@ -392,6 +392,12 @@ class HostileInputRegressionTest {
             assertEquals(List.of("winnow label: " + f + ": no configuration in it (empty, or only blank and comment "
                     + "lines); nothing to label"), l.errLines());
             assertFalse(Files.exists(out), "no header-only output");
+            Path scan = tmp.resolve("scan");
+            Run s = winnow("scan", "--input", f.toString(), "--model", DEMO_MODEL.toString(), "--out", scan.toString());
+            assertEquals(Exit.BAD_INPUT, s.exit());
+            assertEquals(List.of("winnow scan: --input " + f + ": no configuration in it (empty, or only blank, comment"
+                    + " and header lines)"), s.errLines());
+            assertFalse(Files.exists(scan), "no scan of nothing");
         }
     }
 

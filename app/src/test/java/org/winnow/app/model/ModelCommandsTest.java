@@ -2,6 +2,7 @@ package org.winnow.app.model;
 
 import org.winnow.app.cli.WinnowCli;
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import java.io.IOException;
@@ -108,5 +109,11 @@ class ModelCommandsTest {
         Run h = run("train", "--reference", bad.toString(), "--out", "x.wnm", "--holdout-class", "9");
         assertEquals(2, h.code());
         assertEquals("winnow train: --holdout-class must look like h11=V, got '9'", h.err().strip());
+        // Zero epochs wrote an untrained model with exit 0 and "final loss: NaN".
+        Path none = dir.resolve("none.wnm");
+        Run z = run("train", "--reference", bad.toString(), "--out", none.toString(), "--epochs", "0");
+        assertEquals(2, z.code());
+        assertEquals("winnow train: --epochs must be at least 1, got 0", z.err().strip());
+        assertFalse(Files.exists(none));
     }
 }
