@@ -60,6 +60,14 @@ public final class ScanStatus {
         return rep == null ? 0 : scored() + rep.skipped() + rep.duplicates() + rep.badInputs();
     }
 
+    /**
+     * Takes the first sample of the rate at {@code nowNanos} without a line, so that the first line shown (a
+     * plain one comes a whole period later) already has a measured rate instead of "--/s".
+     */
+    public void start(long nowNanos) {
+        line(nowNanos);
+    }
+
     /** The status at time {@code nowNanos} (any monotonic origin). */
     public String line(long nowNanos) {
         double scored = 0;

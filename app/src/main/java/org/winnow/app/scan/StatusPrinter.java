@@ -30,6 +30,7 @@ public final class StatusPrinter implements AutoCloseable {
     public static StatusPrinter start(ScanStatus status, PrintStream err, LongSupplier nanoTime) {
         OptionalLong size = status.size();
         boolean terminal = stderrIsTerminal();
+        status.start(nanoTime.getAsLong());
         Thread t = new Thread(() -> {
             try {
                 if (terminal) {

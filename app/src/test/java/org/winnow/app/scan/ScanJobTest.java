@@ -198,5 +198,16 @@ class ScanJobTest {
         // A measured standstill is a rate: 0 in the next interval blends into 0.7 * 50 = 35/s.
         String still = st.line(3_000_000_000L);
         assertTrue(still.startsWith("100 scored, 35/s, "), still);
+        // Started a period before its first line (as the plain status is), the first line has a rate.
+        var reg2 = new io.micrometer.core.instrument.simple.SimpleMeterRegistry();
+        var metrics2 = new org.winnow.pipeline.metrics.ScorerMetrics(reg2);
+        ScanStatus later = new ScanStatus(reg2, () -> new org.winnow.pipeline.SourceReport(0, 0, 0, 0, 0, List.of(),
+                false), OptionalLong.of(1000));
+        later.start(0);
+        for (int i = 0; i < 50; i++) {
+            metrics2.scored(org.winnow.pipeline.Scored.of(cand, inv, est, org.winnow.pipeline.Reason.KEPT_IN_RANGE), 10);
+        }
+        // 50 in 10 s: 5/s; 950 left: 190 s.
+        assertEquals("50 scored, 5/s, rejected 0.0%, kept as novel 0, ETA 0:03:10", later.line(10_000_000_000L));
     }
 }
