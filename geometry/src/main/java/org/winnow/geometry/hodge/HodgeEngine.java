@@ -5,6 +5,7 @@ import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.Comparator;
 import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Optional;
@@ -57,12 +58,25 @@ public final class HodgeEngine {
     /** The two coefficient seeds used unless others are given. */
     public static final long[] DEFAULT_SEEDS = {0x243F6A8885A308D3L, 0x13198A2E03707344L};
 
+    /** Product blocks remembered per engine (a few kilobytes each). */
+    private static final int REMEMBERED_BLOCKS = 1024;
+
     private static final System.Logger LOG = System.getLogger(HodgeEngine.class.getName());
 
     private final long[] seeds;
     private final ExactBackend backend;
     private final LongSupplier nanoClock;
     private final InvariantCalculator invariants = new InvariantCalculator();
+    /**
+     * Results of product blocks, by canonical block: a product's blocks are few distinct small Calabi-Yau
+     * manifolds (a torus, a K3, a three-fold), met again and again, so each is computed once per engine.
+     */
+    private final Map<Configuration, HodgeResult> blockResults = new LinkedHashMap<>(64, 0.75f, true) {
+        @Override
+        protected boolean removeEldestEntry(Map.Entry<Configuration, HodgeResult> eldest) {
+            return size() > REMEMBERED_BLOCKS;
+        }
+    };
 
     /**
      * An engine.
@@ -183,7 +197,11 @@ public final class HodgeEngine {
                 return refusedProduct(input, chi, "product " + names + ": block " + (i + 1) + " (" + f.toText()
                         + ") has dimension " + dim + (dim == 0 ? ", finitely many points" : ", empty"), factors, start);
             }
-            HodgeResult r = compute(f, true);
+            HodgeResult r = blockResults.get(f);
+            if (r == null) {
+                r = compute(f, true);
+                blockResults.put(f, r);
+            }
             if (r.status() != Status.EXACT) {
                 return refusedProduct(input, chi, "product " + names + ": block " + (i + 1) + " (" + f.toText() + ") is "
                         + r.status().label() + ": " + r.reason(), factors, start);

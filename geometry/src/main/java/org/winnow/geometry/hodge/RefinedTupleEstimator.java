@@ -51,6 +51,7 @@ public final class RefinedTupleEstimator {
     private HodgeEngine cheapEngine;
     private ExecutorService prover;
     private boolean lastProofTimedOut;
+    private boolean deferred;
 
     /** An estimator whose engines (made on first need) read time from {@code nanoClock}. */
     public RefinedTupleEstimator(LongSupplier nanoClock) {
@@ -76,6 +77,7 @@ public final class RefinedTupleEstimator {
     public TupleEstimate estimate(Configuration c, long chi) {
         requireSupported(c);
         firstPage.compute(c, chi);
+        deferred = false;
         if (firstPage.blocks() > 1) {
             return product(c);
         }
@@ -87,6 +89,61 @@ public final class RefinedTupleEstimator {
             return assemble(c.dimension(), chi, pages, "first page");
         }
         return combine(c.dimension(), chi, pages, engineAnswer(c));
+    }
+
+    /**
+     * The tuple with the engine deferred: every value still with its basis, but the engine runs only where
+     * neither the first page proves h11 nor {@code settledH11} is given, so that h11 is what
+     * {@link #estimate(Configuration, long)} gives wherever the settled first-page reading of
+     * {@link org.winnow.geometry.cohomology.H11Estimator} is right. Cases, for one block:
+     * <ul>
+     *   <li>the first page proves every value: that tuple, as {@code estimate} gives it;</li>
+     *   <li>the first page proves h11: h11 PROVED, h21, h31 and h22 BOUNDED by the first page;</li>
+     *   <li>it does not, but {@code settledH11 >= 1} lies in its h11 interval: h11 BOUNDED by that interval
+     *       with {@code settledH11} as its value (a reading that assumes a map of maximal rank, so never
+     *       marked proved), the rest BOUNDED by the first page;</li>
+     *   <li>otherwise (and for products) {@code estimate} itself, the engine included.</li>
+     * </ul>
+     * {@link #lastDeferred()} says when the engine was skipped although a value is not proved:
+     * {@code estimate} may then prove more.
+     *
+     * <p>Why: a scan needs the engine only where a verdict hinges on a value the first page leaves open
+     * (the engine on the ~15% of lossless four-folds whose Jacobian ranks the first page leaves open is
+     * nearly all of the cost of {@code estimate}; docs/benchmarks.md).
+     *
+     * @param settledH11 the settled first-page h11 of {@code c}, or a negative number when it is unsettled
+     */
+    public TupleEstimate estimateDeferred(Configuration c, long chi, int settledH11) {
+        requireSupported(c);
+        firstPage.compute(c, chi);
+        deferred = false;
+        if (firstPage.blocks() > 1) {
+            return product(c);
+        }
+        if (!firstPage.applies()) {
+            return guesses(c.dimension(), false, "estimate");
+        }
+        Interval[] pages = {firstPage.h11(), firstPage.h21(), firstPage.h31(), firstPage.h22()};
+        if (allExact(pages, c.dimension())) {
+            return assemble(c.dimension(), chi, pages, "first page");
+        }
+        if (pages[0] != null && pages[0].isExact()) {
+            deferred = true;
+            return assemble(c.dimension(), chi, pages, "first page (engine deferred)");
+        }
+        if (settledH11 >= 1 && (pages[0] == null || pages[0].contains(settledH11))) {
+            deferred = true;
+            return assemble(c.dimension(), chi, pages, settledH11, "first page (engine deferred)");
+        }
+        return combine(c.dimension(), chi, pages, engineAnswer(c));
+    }
+
+    /**
+     * True iff the last {@link #estimateDeferred} skipped the engine although some value is not proved by
+     * the first page: {@link #estimate(Configuration, long)} on the same configuration may prove more.
+     */
+    public boolean lastDeferred() {
+        return deferred;
     }
 
     /**
@@ -316,7 +373,11 @@ public final class RefinedTupleEstimator {
      * rows this puts the whole tuple right on 532 instead of 80 (docs/model.md).
      */
     private TupleEstimate assemble(int d, long chi, Interval[] v, String method) {
-        long g11 = v[0] == null ? firstPage.guess11() : v[0].lo();
+        return assemble(d, chi, v, v[0] == null ? firstPage.guess11() : v[0].lo(), method);
+    }
+
+    /** As {@link #assemble(int, long, Interval[], String)} with {@code g11} as the guess for h11. */
+    private TupleEstimate assemble(int d, long chi, Interval[] v, long g11, String method) {
         KnownValue h11 = known(v[0], g11);
         KnownValue h21;
         KnownValue h31 = null;

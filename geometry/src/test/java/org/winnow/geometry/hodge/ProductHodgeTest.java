@@ -169,4 +169,21 @@ class ProductHodgeTest {
         }
         assertTrue(products >= 30, "too few products: " + products);
     }
+
+    @Test
+    void aRememberedBlockGivesTheSameProductAsAFreshEngine() {
+        // Products sharing blocks, some blocks met twice: one engine remembers the blocks, the oracle is a fresh
+        // engine for every product.
+        List<String> products = List.of("3:4,0/3:0,4", "2:3,0/3:0,4", "3:4,0/3:0,4", "2:3,0/4:0,5", "2:3,0/3:0,4",
+                "2:3,0,0/2:0,3,0/3:0,0,4", "2:3,0/4:0,5");
+        HodgeEngine remembering = HodgeEngine.standard();
+        for (String text : products) {
+            HodgeResult again = remembering.compute(Configuration.parse(text));
+            HodgeResult fresh = HodgeEngine.standard().compute(Configuration.parse(text));
+            assertEquals(fresh.status(), again.status(), text);
+            assertEquals(fresh.diamond(), again.diamond(), text);
+            assertEquals(fresh.factors(), again.factors(), text);
+            assertTrue(again.isProduct(), text);
+        }
+    }
 }

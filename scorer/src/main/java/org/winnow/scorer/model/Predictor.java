@@ -201,6 +201,37 @@ public final class Predictor {
     /** The largest confidence an unproved value can show (a unanimous vote of 30 neighbours). */
     static final double UNPROVED_MAX = 31.0 / 32.0;
 
+    /**
+     * Turns the deferred engine on or off ({@link org.winnow.scorer.network.Anchor#deferEngine}): with it on,
+     * {@link #predict} skips the Hodge engine where the first page proves h11 or reads it settled, so values
+     * may keep the first page's wider proved intervals ({@link #lastDeferred()}; an h11 read settled is
+     * BOUNDED, never proved). Where that reading is right (every settled four-fold and three-fold of the
+     * lossless enumerations measured so far; docs/model.md) the features, the embedding, the neighbours and
+     * the novelty are those of the complete tuple. Off by default (training and evaluation).
+     */
+    public void deferEngine(boolean on) {
+        ws.anchor.deferEngine(on);
+    }
+
+    /** True iff the last {@link #predict} deferred the engine and {@link #complete} may prove more. */
+    public boolean lastDeferred() {
+        return ws.anchor.deferred();
+    }
+
+    /**
+     * The prediction {@link #predict} gives with the engine not deferred (whatever the setting), for a
+     * candidate whose verdict hinges on a value the deferred tuple left open. The setting is kept.
+     */
+    public Prediction complete(Configuration config, long chi) {
+        boolean was = ws.anchor.deferring();
+        ws.anchor.deferEngine(false);
+        try {
+            return predict(config, chi);
+        } finally {
+            ws.anchor.deferEngine(was);
+        }
+    }
+
     /** The anchor tuple of the last scored candidate, or null (another dimension than 3 and 4). */
     public TupleEstimate tuple() {
         return ws.anchor.tuple();

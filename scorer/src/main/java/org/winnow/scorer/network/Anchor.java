@@ -14,6 +14,13 @@ import org.winnow.geometry.hodge.TupleEstimate;
  * h11-only anchor ({@link RefinedH11Estimator}). The two first-page terms the network also reads come
  * from {@link H11Estimator}, as before, so that the input features keep their meaning.
  *
+ * <p>With {@link #deferEngine(boolean)} on, the tuple comes from
+ * {@link RefinedTupleEstimator#estimateDeferred}, given the settled first-page h11: the engine is skipped
+ * where the first page proves h11 or reads it settled (so the h11-only anchor's cost, and the same h11,
+ * features and neighbours wherever the settled reading is right), and {@link #deferred()} says when
+ * values were left wider than {@code estimate} would leave them. A scan turns it on and completes only
+ * the candidates whose verdict hinges on such a value; training and evaluation leave it off.
+ *
  * <p>NOT thread-safe (it owns estimators): one per workspace.
  */
 public final class Anchor {
@@ -23,6 +30,7 @@ public final class Anchor {
     private TupleEstimate tuple;
     private int h11;
     private boolean plainFirstPage;
+    private boolean deferEngine;
 
     /**
      * Anchors {@code c} (exact Euler characteristic {@code chi}) and writes global features 8 to 11 at
@@ -34,7 +42,8 @@ public final class Anchor {
         long conormalExcess;
         if (d == 3 || d == 4) {
             int page = firstPage.estimate(c);
-            tuple = tuples.estimate(c, chi);
+            tuple = deferEngine ? tuples.estimateDeferred(c, chi, firstPage.settled() ? page : -1)
+                    : tuples.estimate(c, chi);
             h11 = Math.toIntExact(tuple.h11().value());
             plainFirstPage = firstPage.settled() && page == h11;
             eulerOne = firstPage.eulerOne();
@@ -50,6 +59,24 @@ public final class Anchor {
         out[off + 9] = h11 - c.rows();
         out[off + 10] = eulerOne;
         out[off + 11] = conormalExcess;
+    }
+
+    /** Turns the deferred engine on or off for the configurations anchored from now on. */
+    public void deferEngine(boolean on) {
+        deferEngine = on;
+    }
+
+    /** True iff the deferred engine is on. */
+    public boolean deferring() {
+        return deferEngine;
+    }
+
+    /**
+     * True iff the engine was deferred on the last configuration and the tuple's h21, h31 or h22 may be
+     * wider than the complete estimate's (see {@link RefinedTupleEstimator#lastDeferred()}).
+     */
+    public boolean deferred() {
+        return tuple != null && deferEngine && tuples.lastDeferred();
     }
 
     /** The anchor h11 of the last configuration. */

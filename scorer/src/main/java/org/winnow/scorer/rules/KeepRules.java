@@ -163,6 +163,30 @@ public record KeepRules(List<RangeRule> ranges, List<ResidueRule> residues, doub
         return false;
     }
 
+    /**
+     * True iff the verdict {@code reason} on a prediction whose values may be wider than the complete
+     * tuple's (the engine deferred) could differ from the verdict on the complete prediction: as
+     * {@link #restsOnUnproved}, except that an unproved value whose proved interval lies inside its rule's
+     * range does not count, since every value the complete tuple can give lies in that interval.
+     */
+    public boolean hingesOnOpenValue(ExactInvariants exact, Prediction prediction, Reason reason) {
+        if (reason.verdict() == org.winnow.pipeline.Verdict.REJECT && !reason.code().startsWith("predicted-")) {
+            return false; // exact, residue, proved or bounded: a proof, which the complete tuple cannot overturn
+        }
+        boolean product = prediction.product() || exact.blocks() > 1;
+        for (RangeRule r : ranges) {
+            if (r.invariant().exact() || product && r.invariant() != Keepable.H11) {
+                continue;
+            }
+            PredictedValue v = prediction.value(r.invariant());
+            if (v != null && !v.isProved()
+                    && !(v.basis() == org.winnow.geometry.hodge.Basis.BOUNDED && r.contains(v.lo()) && r.contains(v.hi()))) {
+                return true;
+            }
+        }
+        return false;
+    }
+
     /** True iff every predicted value a rule names (h11 only for a product) is proved or not determined. */
     public boolean namedValuesProved(ExactInvariants exact, Prediction prediction) {
         boolean product = prediction.product() || exact.blocks() > 1;

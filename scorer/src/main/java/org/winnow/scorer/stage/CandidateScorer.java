@@ -43,6 +43,11 @@ public final class CandidateScorer {
         ExactInvariants exact = invariants.compute(candidate.config());
         Prediction p = predictions.predict(candidate.config(), exact);
         Reason reason = rules.decide(exact, p);
+        if (predictions.lastDeferred() && rules.hingesOnOpenValue(exact, p, reason)) {
+            // The engine was skipped; this verdict hinges on a value the complete tuple may pin differently.
+            p = predictions.complete(candidate.config(), exact);
+            reason = rules.decide(exact, p);
+        }
         if (proofBudget != null && rules.restsOnUnproved(exact, p, reason)) {
             // The opt-in proof step: only where a proof could change the verdict, within the budget.
             p = predictions.prove(candidate.config(), exact, p, proofBudget);

@@ -77,13 +77,28 @@ public final class ModelScoring implements ScoringFunctions {
     @Override
     public PredictionFunction newPredictions() {
         Predictor predictor = model.newPredictor();
+        // A scan pays for the Hodge engine only where a verdict hinges on a value the first page leaves open.
+        predictor.deferEngine(true);
         int modelDim = model.dimension();
         return new PredictionFunction() {
             private RefinedTupleEstimator prover;
 
             @Override
             public Prediction predict(Configuration config, ExactInvariants exact) {
-                Prediction p = predictor.predict(config, exact.chi());
+                return outsideDimension(predictor.predict(config, exact.chi()), exact);
+            }
+
+            @Override
+            public boolean lastDeferred() {
+                return predictor.lastDeferred();
+            }
+
+            @Override
+            public Prediction complete(Configuration config, ExactInvariants exact) {
+                return outsideDimension(predictor.complete(config, exact.chi()), exact);
+            }
+
+            private Prediction outsideDimension(Prediction p, ExactInvariants exact) {
                 if (exact.dim() == modelDim) {
                     return p;
                 }
