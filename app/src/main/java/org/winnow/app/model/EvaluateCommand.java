@@ -64,6 +64,17 @@ public final class EvaluateCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             return Exit.badInput(err, "evaluate", e.getMessage());
         }
+        if (maxPlotPoints < 1) {
+            // 0 or less was taken as 1 without a word: a picture of one point looks like a broken embedding.
+            return Exit.badInput(err, "evaluate", "--max-plot-points must be at least 1, got " + maxPlotPoints);
+        }
+        for (Path d : new Path[] {plots, outDir}) {
+            if (d != null && java.nio.file.Files.exists(d) && !java.nio.file.Files.isDirectory(d)) {
+                // Found only after the whole evaluation had run and printed its tables.
+                return Exit.badInput(err, "evaluate", (d == plots ? "--plots " : "--out ") + d
+                        + ": exists and is not a directory");
+            }
+        }
         FrozenModel model;
         try {
             model = FrozenModel.load(modelPath);

@@ -77,6 +77,16 @@ class ModelCommandsTest {
         for (String png : new String[] {"m-embedding.png", "m-confusion.png"}) {
             assertTrue(ImageIO.read(dir.resolve(png).toFile()).getWidth() > 100, png);
         }
+        // Odd options are refused before the evaluation runs, not after its tables are printed.
+        Path file = Files.writeString(dir.resolve("afile"), "x");
+        for (String[] c : new String[][] {{"--max-plot-points", "0", "--max-plot-points must be at least 1, got 0"},
+            {"--plots", file.toString(), "--plots " + file + ": exists and is not a directory"},
+            {"--out", file.toString(), "--out " + file + ": exists and is not a directory"}}) {
+            Run bad = run("evaluate", "--model", model.toString(), "--reference", tsv.toString(), c[0], c[1]);
+            assertEquals(2, bad.code(), c[2]);
+            assertEquals("winnow evaluate: " + c[2], bad.err().strip());
+            assertEquals("", bad.out());
+        }
     }
 
     @Test
