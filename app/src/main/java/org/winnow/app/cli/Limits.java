@@ -18,12 +18,17 @@ public final class Limits {
 
     /** Null when {@code threads} is acceptable, else the one-line refusal. */
     public static String threadsProblem(int threads) {
+        return threadsProblem("--threads", threads);
+    }
+
+    /** {@link #threadsProblem(int)} for a thread count given by {@code option}, named in the message. */
+    public static String threadsProblem(String option, int threads) {
         if (threads < 1) {
-            return "--threads must be at least 1, got " + threads;
+            return option + " must be at least 1, got " + threads;
         }
         int max = maxThreads();
         if (threads > max) {
-            return "--threads " + threads + " is more than " + max + " (4 per processor here); more threads than "
+            return option + " " + threads + " is more than " + max + " (4 per processor here); more threads than "
                     + "that only add memory and switching";
         }
         return null;

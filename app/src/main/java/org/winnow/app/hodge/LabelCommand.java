@@ -140,10 +140,11 @@ public final class LabelCommand implements Callable<Integer> {
     }
 
     private int label() throws IOException, InterruptedException {
-        for (int n : new int[] {threads, enumerateThreads}) {
-            if (Limits.threadsProblem(n) != null) {
-                return Exit.badInput(err, "label", Limits.threadsProblem(n));
-            }
+        if (Limits.threadsProblem(threads) != null) {
+            return Exit.badInput(err, "label", Limits.threadsProblem(threads));
+        }
+        if (Limits.threadsProblem("--enumerate-threads", enumerateThreads) != null) {
+            return Exit.badInput(err, "label", Limits.threadsProblem("--enumerate-threads", enumerateThreads));
         }
         if ((in == null) == !space.given()) {
             return Exit.badInput(err, "label", "give either --in F or the bounds of a space (--dim D ...), not "

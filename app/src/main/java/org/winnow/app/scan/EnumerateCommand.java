@@ -14,6 +14,7 @@ import me.tongfei.progressbar.ProgressBar;
 import me.tongfei.progressbar.ProgressBarBuilder;
 import org.winnow.app.cli.CheckedOutput;
 import org.winnow.app.cli.Exit;
+import org.winnow.app.cli.Limits;
 import org.winnow.app.cli.Terminal;
 import org.winnow.producer.Bounds;
 import org.winnow.producer.EnumerationCounts;
@@ -62,8 +63,8 @@ public final class EnumerateCommand implements Callable<Integer> {
         } catch (IllegalArgumentException e) {
             return Exit.badInput(err, "enumerate", e.getMessage());
         }
-        if (threads < 1) {
-            return Exit.badInput(err, "enumerate", "--threads must be at least 1, got " + threads);
+        if (Limits.threadsProblem(threads) != null) {
+            return Exit.badInput(err, "enumerate", Limits.threadsProblem(threads));
         }
         Bounds bounds = es.bounds();
         ExclusionSet exclusions = es.rules();

@@ -196,8 +196,9 @@ public final class ScanCommand implements Callable<Integer> {
         if (threads != null && Limits.threadsProblem(threads) != null) {
             throw new StartupException(Limits.threadsProblem(threads));
         }
-        if (enumerateThreads != null && enumerateThreads < 1) {
-            throw new StartupException("--enumerate-threads must be at least 1, got " + enumerateThreads);
+        if (enumerateThreads != null && Limits.threadsProblem("--enumerate-threads", enumerateThreads) != null) {
+            // 100,000 threads took half a minute to start before anything was scored.
+            throw new StartupException(Limits.threadsProblem("--enumerate-threads", enumerateThreads));
         }
         if (queue < 1) {
             throw new StartupException("--queue must be at least 1, got " + queue);

@@ -166,6 +166,20 @@ class HostileInputRegressionTest {
         assertEquals(List.of("winnow hodge: " + Limits.threadsProblem(100_000)), r.errLines());
         assertNotEquals(null, Limits.threadsProblem(Limits.maxThreads() + 1));
         assertEquals(null, Limits.threadsProblem(Limits.maxThreads()));
+        // The enumeration's threads had only a lower bound: 100,000 of them took half a minute to start.
+        String tooMany = Limits.threadsProblem("--enumerate-threads", 100_000);
+        assertTrue(tooMany.startsWith("--enumerate-threads 100000 is more than "), tooMany);
+        Run scan = winnow("scan", "--dim", "3", "--max-rows", "1", "--model", DEMO_MODEL.toString(), "--out",
+                "never-written", "--enumerate-threads", "100000");
+        assertEquals(List.of("winnow scan: " + tooMany), scan.errLines());
+        Run label = winnow("label", "--dim", "3", "--max-rows", "1", "--out", "never-written.tsv",
+                "--enumerate-threads", "100000");
+        assertEquals(List.of("winnow label: " + tooMany), label.errLines());
+        Run enumerate = winnow("enumerate", "--dim", "3", "--max-rows", "1", "--threads", "100000");
+        assertEquals(List.of("winnow enumerate: " + Limits.threadsProblem(100_000)), enumerate.errLines());
+        assertEquals(List.of(Exit.BAD_INPUT, Exit.BAD_INPUT, Exit.BAD_INPUT), List.of(scan.exit(), label.exit(),
+                enumerate.exit()));
+        assertFalse(Files.exists(Path.of("never-written")) || Files.exists(Path.of("never-written.tsv")));
     }
 
     /** {@code scan --input adir} used to say only "Is a directory". */
