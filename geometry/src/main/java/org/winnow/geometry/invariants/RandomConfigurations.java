@@ -115,6 +115,34 @@ public final class RandomConfigurations {
         return Configuration.of(n, q);
     }
 
+    /** A uniformly random permutation of {@code 0..size-1} (Fisher-Yates from the last place down). */
+    public int[] permutation(int size) {
+        int[] p = new int[size];
+        for (int i = 0; i < size; i++) {
+            p[i] = i;
+        }
+        shuffle(p);
+        return p;
+    }
+
+    /**
+     * The same matrix with its rows and then its columns in random order: the same manifold, so every
+     * invariant and the canonical form must not change (what the order-independence tests check).
+     */
+    public Configuration permuted(Configuration c) {
+        int[] rows = permutation(c.rows());
+        int[] cols = permutation(c.cols());
+        int[] n = new int[c.rows()];
+        int[][] q = new int[c.rows()][c.cols()];
+        for (int r = 0; r < c.rows(); r++) {
+            n[r] = c.n(rows[r]);
+            for (int j = 0; j < c.cols(); j++) {
+                q[r][j] = c.q(rows[r], cols[j]);
+            }
+        }
+        return Configuration.of(n, q);
+    }
+
     private static boolean columnIsZero(int[][] q, int j) {
         for (int[] row : q) {
             if (row[j] != 0) {

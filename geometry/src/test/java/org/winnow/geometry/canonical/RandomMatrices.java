@@ -2,6 +2,7 @@ package org.winnow.geometry.canonical;
 
 import java.util.random.RandomGenerator;
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.invariants.RandomConfigurations;
 
 /** Seeded random matrices and permutations for the canonical-form tests. */
 public final class RandomMatrices {
@@ -33,30 +34,10 @@ public final class RandomMatrices {
 
     /** The same matrix with rows and columns shuffled. */
     public static Configuration permuted(RandomGenerator rnd, Configuration c) {
-        int[] rows = permutation(rnd, c.rows());
-        int[] cols = permutation(rnd, c.cols());
-        int[] n = new int[c.rows()];
-        int[][] q = new int[c.rows()][c.cols()];
-        for (int r = 0; r < c.rows(); r++) {
-            n[r] = c.n(rows[r]);
-            for (int j = 0; j < c.cols(); j++) {
-                q[r][j] = c.q(rows[r], cols[j]);
-            }
-        }
-        return Configuration.of(n, q);
+        return new RandomConfigurations(rnd).permuted(c);
     }
 
     static int[] permutation(RandomGenerator rnd, int size) {
-        int[] p = new int[size];
-        for (int i = 0; i < size; i++) {
-            p[i] = i;
-        }
-        for (int i = size - 1; i > 0; i--) {
-            int j = rnd.nextInt(i + 1);
-            int t = p[i];
-            p[i] = p[j];
-            p[j] = t;
-        }
-        return p;
+        return new RandomConfigurations(rnd).permutation(size);
     }
 }

@@ -96,30 +96,6 @@ class InvariantPropertiesTest {
     }
 
     private static Configuration permute(Configuration c, SplittableRandom rng) {
-        int[] rows = shuffled(c.rows(), rng);
-        int[] cols = shuffled(c.cols(), rng);
-        int[] n = new int[c.rows()];
-        int[][] q = new int[c.rows()][c.cols()];
-        for (int r = 0; r < c.rows(); r++) {
-            n[r] = c.n(rows[r]);
-            for (int j = 0; j < c.cols(); j++) {
-                q[r][j] = c.q(rows[r], cols[j]);
-            }
-        }
-        return Configuration.of(n, q);
-    }
-
-    private static int[] shuffled(int len, SplittableRandom rng) {
-        int[] a = new int[len];
-        for (int i = 0; i < len; i++) {
-            a[i] = i;
-        }
-        for (int i = len - 1; i > 0; i--) {
-            int j = rng.nextInt(i + 1);
-            int t = a[i];
-            a[i] = a[j];
-            a[j] = t;
-        }
-        return a;
+        return new RandomConfigurations(rng).permuted(c);
     }
 }

@@ -7,6 +7,7 @@ import java.util.List;
 import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.winnow.geometry.Configuration;
+import org.winnow.geometry.invariants.RandomConfigurations;
 import org.winnow.scorer.reference.synthetic.SyntheticScenario;
 import org.winnow.scorer.reference.LabelledExample;
 import org.winnow.scorer.network.Architecture;
@@ -150,30 +151,6 @@ class EmbeddingNetworkTest {
     }
 
     static Configuration permute(Configuration c, SplittableRandom rng) {
-        int[] rows = shuffled(c.rows(), rng);
-        int[] cols = shuffled(c.cols(), rng);
-        int[] n = new int[c.rows()];
-        int[][] q = new int[c.rows()][c.cols()];
-        for (int r = 0; r < c.rows(); r++) {
-            n[r] = c.n(rows[r]);
-            for (int j = 0; j < c.cols(); j++) {
-                q[r][j] = c.q(rows[r], cols[j]);
-            }
-        }
-        return Configuration.of(n, q);
-    }
-
-    private static int[] shuffled(int len, SplittableRandom rng) {
-        int[] a = new int[len];
-        for (int i = 0; i < len; i++) {
-            a[i] = i;
-        }
-        for (int i = len - 1; i > 0; i--) {
-            int j = rng.nextInt(i + 1);
-            int t = a[i];
-            a[i] = a[j];
-            a[j] = t;
-        }
-        return a;
+        return new RandomConfigurations(rng).permuted(c);
     }
 }
