@@ -313,8 +313,8 @@ public final class TupleMeasurements {
             wrongProved[1] += wrongProofs(q, truth);
         }
         System.out.printf(Locale.ROOT, "labelled four-folds: %d (every %d of %s, non-products)%n", rows, every, labels);
-        System.out.printf(Locale.ROOT, "model: tuple right %.4f, wrong values marked proved %d%n", allRight[0] / (double) rows,
-                wrongProved[0]);
+        System.out.printf(Locale.ROOT, "model: tuple right %.4f (%d of %d), wrong values marked proved %d%n",
+                allRight[0] / (double) rows, allRight[0], rows, wrongProved[0]);
         System.out.printf(Locale.ROOT, "as a scan shows it with the engine deferred and no rule asking for more: tuple right"
                 + " %.4f (engine deferred on %d), wrong values marked proved %d%n", deferredRight / (double) rows,
                 deferredRows, deferredWrong);
