@@ -28,10 +28,19 @@ final class SearchTree {
     private final Leaf leaf;
     /** The rule set drops Q3p, so a subtree under two equal P^1 rows has no leaf to emit. */
     private final boolean pruneEqualP1Rows;
+    /** The rule set drops Ek, so a subtree whose every leaf is an ineffective split has nothing to emit. */
+    private final boolean pruneSplits;
+    private final SplitBound splitBound = new SplitBound();
     private final CanonicalSearch canon = new CanonicalSearch();
     private final LeafChecks checks = new LeafChecks();
     private final int[][] q = new int[Configuration.MAX_ROWS][Configuration.MAX_COLS];
     private final int[] colSum = new int[Configuration.MAX_COLS];
+    /** Per column, the bit mask of the placed rows with a nonzero entry in it. */
+    private final int[] colSupport = new int[Configuration.MAX_COLS];
+    /** Per placed row, the bit mask of its columns with a nonzero entry. */
+    private final int[] rowColumns = new int[Configuration.MAX_ROWS];
+    /** Per placed row, whether all its entries are 0 or 1. */
+    private final boolean[] zeroOne = new boolean[Configuration.MAX_ROWS];
     private final int[] bigSum = new int[Configuration.MAX_COLS];
     private final int[] blockStarts = new int[Configuration.MAX_ROWS + 1];
     /** Total of n+1 over rows t..m-1. */
@@ -58,11 +67,20 @@ final class SearchTree {
      *             worker of a parallel walk that claims units as it meets them)
      */
     SearchTree(Bounds bounds, ExclusionSet rules, LongPredicate owns, Leaf leaf) {
+        this(bounds, rules, owns, leaf, true);
+    }
+
+    /**
+     * @param splitBound whether to skip subtrees whose every leaf is proved an ineffective split (when the
+     *                   rules drop Ek); off only to test that the skipping changes nothing
+     */
+    SearchTree(Bounds bounds, ExclusionSet rules, LongPredicate owns, Leaf leaf, boolean splitBound) {
         this.bounds = bounds;
         this.rules = rules;
         this.owns = owns;
         this.leaf = leaf;
         this.pruneEqualP1Rows = rules.drops(Flag.Q3P.bit());
+        this.pruneSplits = splitBound && rules.drops(Flag.EK.bit());
     }
 
     /** Rows placed and accepted so far (tree nodes below the ambient roots), for statistics. */
@@ -92,6 +110,7 @@ final class SearchTree {
         for (int j = 0; j < k; j++) {
             colSum[j] = 0;
             bigSum[j] = 0;
+            colSupport[j] = 0;
         }
         blockStarts[0] = 1;
         unitDepth = unitDepth(m);
@@ -181,13 +200,22 @@ final class SearchTree {
             return;
         }
         boolean big = n[t] >= 2;
+        boolean zeroOneRow = true;
+        int columns = 0;
         for (int j = 0; j < k; j++) {
             colSum[j] += row[j];
             if (big) {
                 bigSum[j] += row[j];
             }
+            if (row[j] != 0) {
+                colSupport[j] |= 1 << t;
+                columns |= 1 << j;
+                zeroOneRow &= row[j] == 1;
+            }
         }
-        if (deficitAllows(t) && canon.pushRow(n, q, t)) {
+        zeroOne[t] = zeroOneRow;
+        rowColumns[t] = columns;
+        if (deficitAllows(t) && !everyLeafSplits(t) && canon.pushRow(n, q, t)) {
             nodes++;
             int starts = blockStarts[t];
             for (int j = 1; j < k; j++) {
@@ -203,7 +231,22 @@ final class SearchTree {
             if (big) {
                 bigSum[j] -= row[j];
             }
+            colSupport[j] &= ~(1 << t);
         }
+    }
+
+    /**
+     * Whether every leaf below rows 0..t is proved an ineffective split. Asked only below the shard units,
+     * so that skipping never changes which units exist (their numbers are the shards' and the parallel
+     * walk's contract); above them the subtrees are few and the slack too large for a proof anyway.
+     */
+    private boolean everyLeafSplits(int t) {
+        if (!pruneSplits || t < unitDepth || t + 1 >= m) {
+            return false;
+        }
+        // sum of n over rows t+1..m-1: capFrom counts n+1 per row
+        int slack = capFrom[t + 1] - (m - t - 1);
+        return splitBound.everyLeafSplits(n, colSupport, rowColumns, zeroOne, t, k, slack);
     }
 
     /**
