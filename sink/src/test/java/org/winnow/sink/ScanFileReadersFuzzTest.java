@@ -11,6 +11,7 @@ import java.util.SplittableRandom;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.pipeline.local.PipelineException;
+import org.winnow.testsupport.Damage;
 
 /**
  * Seeded fuzzing of the checkpoint and manifest readers: a real scan's files (finished and interrupted)
@@ -70,21 +71,6 @@ class ScanFileReadersFuzzTest {
     }
 
     private static String edit(String seed, SplittableRandom rnd) {
-        StringBuilder sb = new StringBuilder(seed);
-        int edits = 1 + rnd.nextInt(3);
-        for (int e = 0; e < edits; e++) {
-            int at = rnd.nextInt(sb.length());
-            switch (rnd.nextInt(5)) {
-                case 0 -> sb.deleteCharAt(at);
-                case 1 -> sb.insert(at, TOKENS[rnd.nextInt(TOKENS.length)]);
-                case 2 -> sb.setCharAt(at, (char) (sb.charAt(at) ^ (1 << rnd.nextInt(7))));
-                case 3 -> sb.setLength(at);
-                default -> sb.replace(at, Math.min(sb.length(), at + 1 + rnd.nextInt(12)), TOKENS[rnd.nextInt(TOKENS.length)]);
-            }
-            if (sb.length() == 0) {
-                break;
-            }
-        }
-        return sb.toString();
+        return Damage.text(seed, rnd, TOKENS, 3, 12);
     }
 }

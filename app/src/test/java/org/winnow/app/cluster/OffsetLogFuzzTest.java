@@ -6,7 +6,6 @@ import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assertions.fail;
 
-import java.io.ByteArrayOutputStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -17,6 +16,7 @@ import java.util.random.RandomGenerator;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.winnow.kafka.ClusterRefusedException;
+import org.winnow.testsupport.Damage;
 
 /**
  * Seeded fuzzing of the sink's Kafka offset log ({@value OffsetLog#FILE}): a log of four checkpoints edited at
@@ -93,38 +93,7 @@ class OffsetLogFuzzTest {
     }
 
     private static byte[] edit(byte[] seed, RandomGenerator rnd) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        byte[] b = seed;
-        int edits = 1 + rnd.nextInt(2);
-        for (int e = 0; e < edits && b.length > 0; e++) {
-            int at = rnd.nextInt(b.length);
-            out.reset();
-            switch (rnd.nextInt(5)) {
-                case 0 -> {
-                    out.write(b, 0, at);
-                    out.write(b, at + 1, b.length - at - 1);
-                }
-                case 1 -> {
-                    out.write(b, 0, at);
-                    out.writeBytes(TOKENS[rnd.nextInt(TOKENS.length)]);
-                    out.write(b, at, b.length - at);
-                }
-                case 2 -> {
-                    byte[] c = b.clone();
-                    c[at] ^= (byte) (1 << rnd.nextInt(8));
-                    out.writeBytes(c);
-                }
-                case 3 -> out.write(b, 0, at);
-                default -> {
-                    int end = Math.min(b.length, at + 1 + rnd.nextInt(6));
-                    out.write(b, 0, at);
-                    out.writeBytes(TOKENS[rnd.nextInt(TOKENS.length)]);
-                    out.write(b, end, b.length - end);
-                }
-            }
-            b = out.toByteArray();
-        }
-        return b;
+        return Damage.bytes(seed, rnd, TOKENS, 2, 6);
     }
 
     private static byte[] bytes(String s) {

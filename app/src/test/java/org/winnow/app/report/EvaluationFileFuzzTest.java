@@ -23,6 +23,7 @@ import org.winnow.scorer.model.Evaluation;
 import org.winnow.scorer.model.FrozenModel;
 import org.winnow.scorer.reference.LabelledExample;
 import org.winnow.scorer.reference.ReferenceTsv;
+import org.winnow.testsupport.Damage;
 
 /**
  * Seeded fuzzing of the {@code evaluation.json} reader behind {@code winnow report}: a real evaluation of the
@@ -148,18 +149,6 @@ class EvaluationFileFuzzTest {
     }
 
     private static String edit(String seed, RandomGenerator rnd) {
-        StringBuilder sb = new StringBuilder(seed);
-        int edits = 1 + rnd.nextInt(3);
-        for (int e = 0; e < edits && sb.length() > 0; e++) {
-            int at = rnd.nextInt(sb.length());
-            switch (rnd.nextInt(5)) {
-                case 0 -> sb.deleteCharAt(at);
-                case 1 -> sb.insert(at, TOKENS[rnd.nextInt(TOKENS.length)]);
-                case 2 -> sb.setCharAt(at, (char) (sb.charAt(at) ^ (1 << rnd.nextInt(7))));
-                case 3 -> sb.setLength(at);
-                default -> sb.replace(at, Math.min(sb.length(), at + 1 + rnd.nextInt(12)), TOKENS[rnd.nextInt(TOKENS.length)]);
-            }
-        }
-        return sb.toString();
+        return Damage.text(seed, rnd, TOKENS, 3, 12);
     }
 }

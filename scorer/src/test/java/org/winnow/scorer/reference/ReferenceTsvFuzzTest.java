@@ -17,6 +17,7 @@ import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.winnow.testsupport.Damage;
 
 /**
  * Seeded fuzzing of the reference TSV reader: a three-fold and a four-fold reference file edited at random on
@@ -124,40 +125,7 @@ class ReferenceTsvFuzzTest {
     }
 
     private static byte[] edit(byte[] seed, RandomGenerator rnd) {
-        ByteArrayOutputStream out = new ByteArrayOutputStream();
-        byte[] b = seed;
-        int edits = 1 + rnd.nextInt(3);
-        for (int e = 0; e < edits && b.length > 0; e++) {
-            int at = rnd.nextInt(b.length);
-            out.reset();
-            switch (rnd.nextInt(5)) {
-                case 0 -> {
-                    out.write(b, 0, at);
-                    out.write(b, at + 1, b.length - at - 1);
-                }
-                case 1 -> {
-                    out.write(b, 0, at);
-                    out.writeBytes(TOKENS[rnd.nextInt(TOKENS.length)]);
-                    out.write(b, at, b.length - at);
-                }
-                case 2 -> {
-                    out.writeBytes(b);
-                    byte[] c = out.toByteArray();
-                    c[at] ^= (byte) (1 << rnd.nextInt(8));
-                    out.reset();
-                    out.writeBytes(c);
-                }
-                case 3 -> out.write(b, 0, at);
-                default -> {
-                    int end = Math.min(b.length, at + 1 + rnd.nextInt(12));
-                    out.write(b, 0, at);
-                    out.writeBytes(TOKENS[rnd.nextInt(TOKENS.length)]);
-                    out.write(b, end, b.length - end);
-                }
-            }
-            b = out.toByteArray();
-        }
-        return b;
+        return Damage.bytes(seed, rnd, TOKENS, 3, 12);
     }
 
     private static byte[] bytes(String s) {
