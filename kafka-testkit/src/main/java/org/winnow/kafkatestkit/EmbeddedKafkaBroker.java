@@ -63,7 +63,8 @@ public final class EmbeddedKafkaBroker implements AutoCloseable {
         Objects.requireNonNull(overrides, "overrides");
         try {
             Path dir = Files.createTempDirectory("winnow-kafka-");
-            EmbeddedKafkaBroker broker = new EmbeddedKafkaBroker(dir.resolve("log"), freePort(), freePort(), overrides);
+            int[] ports = twoFreePorts();
+            EmbeddedKafkaBroker broker = new EmbeddedKafkaBroker(dir.resolve("log"), ports[0], ports[1], overrides);
             broker.format();
             broker.startServer();
             return broker;
@@ -197,10 +198,16 @@ public final class EmbeddedKafkaBroker implements AutoCloseable {
         }
     }
 
-    private static int freePort() throws IOException {
-        try (ServerSocket socket = new ServerSocket(0, 1, InetAddress.getLoopbackAddress())) {
-            socket.setReuseAddress(true);
-            return socket.getLocalPort();
+    /**
+     * Two distinct free ports for the client and controller listeners. Both sockets are held open together:
+     * asked one after the other, the system may hand back the same port twice and the broker then fails to bind.
+     */
+    private static int[] twoFreePorts() throws IOException {
+        try (ServerSocket a = new ServerSocket(0, 1, InetAddress.getLoopbackAddress());
+                ServerSocket b = new ServerSocket(0, 1, InetAddress.getLoopbackAddress())) {
+            a.setReuseAddress(true);
+            b.setReuseAddress(true);
+            return new int[] {a.getLocalPort(), b.getLocalPort()};
         }
     }
 
